@@ -1,0 +1,89 @@
+import { all, create } from 'mathjs';
+import type { Crop, GrainCrop } from '../schemas/plan-file';
+
+/**
+ * The one place for unit conversion. The engine works in US customary units; metric is for display
+ * and entry at the edges. Factors come from mathjs units once, at load, so the engine's hot paths only
+ * multiply.
+ */
+
+const math = create(all);
+// mathjs's built-in `acre` is rounded to 4046.86 m²; the acre is exactly 43,560 ft² (NDSU metric card).
+math.createUnit('acreExact', '43560 ft^2');
+
+function factor(from: string, to: string): number {
+	return math.unit(1, from).toNumber(to);
+}
+
+export const squareFeetPerAcre = factor('acreExact', 'ft^2');
+export const feetPerMile = factor('mi', 'ft');
+export const inchesPerFoot = factor('ft', 'inch');
+export const poundsPerTon = factor('ton', 'lb');
+export const hectaresPerAcre = factor('acreExact', 'hectare');
+export const kgPerLb = factor('lb', 'kg');
+export const litresPerGallon = factor('gal', 'L');
+export const kwPerHp = factor('hp', 'kW');
+export const kmhPerMph = factor('mi/h', 'km/h');
+export const metresPerFoot = factor('ft', 'm');
+export const kgPerHaPerLbPerAcre = factor('lb/acreExact', 'kg/hectare');
+export const litresPerHaPerGallonPerAcre = factor('gal/acreExact', 'L/hectare');
+export const tonnesPerHaPerTonPerAcre = factor('ton/acreExact', 'tonne/hectare');
+
+/** An animal-unit month is one animal unit for 30 days (Society for Range Management glossary). */
+export const daysPerAnimalUnitMonth = 30;
+/** Animal units are counted per 1,000 lb of live weight (Society for Range Management glossary). */
+export const lbLiveWeightPerAnimalUnit = 1000;
+
+// Univ. of Missouri G4020 and FCIC-25010: legal bushel weights, lb per bushel.
+export const bushelWeightLb: Record<GrainCrop, number> = {
+	corn: 56,
+	soybean: 60,
+	wheat: 60,
+	oats: 32,
+	barley: 48,
+	rye: 56
+};
+
+/** How a crop is sold: grains by the bushel, forages by the (short) ton as fed. */
+export function yieldUnit(crop: Crop): 'bu' | 'ton' {
+	return crop in bushelWeightLb ? 'bu' : 'ton';
+}
+
+export function bushelsToTonnes(bushels: number, crop: GrainCrop): number {
+	return (bushels * bushelWeightLb[crop] * kgPerLb) / 1000;
+}
+
+export function tonnesToBushels(tonnes: number, crop: GrainCrop): number {
+	return (tonnes * 1000) / (bushelWeightLb[crop] * kgPerLb);
+}
+
+export function bushelsPerAcreToKgPerHa(buPerAcre: number, crop: GrainCrop): number {
+	return buPerAcre * bushelWeightLb[crop] * kgPerHaPerLbPerAcre;
+}
+
+export function kgPerHaToBushelsPerAcre(kgPerHa: number, crop: GrainCrop): number {
+	return kgPerHa / (bushelWeightLb[crop] * kgPerHaPerLbPerAcre);
+}
+
+/** Quantities the app shows in either system, with their US and metric units. */
+export const quantityUnits = {
+	area: { us: 'ac', metric: 'ha', metricPerUs: hectaresPerAcre },
+	mass: { us: 'lb', metric: 'kg', metricPerUs: kgPerLb },
+	rate: { us: 'lb/ac', metric: 'kg/ha', metricPerUs: kgPerHaPerLbPerAcre },
+	volume: { us: 'gal', metric: 'L', metricPerUs: litresPerGallon },
+	volumeRate: { us: 'gal/ac', metric: 'L/ha', metricPerUs: litresPerHaPerGallonPerAcre },
+	tonRate: { us: 'ton/ac', metric: 't/ha', metricPerUs: tonnesPerHaPerTonPerAcre },
+	power: { us: 'hp', metric: 'kW', metricPerUs: kwPerHp },
+	speed: { us: 'mph', metric: 'km/h', metricPerUs: kmhPerMph },
+	length: { us: 'ft', metric: 'm', metricPerUs: metresPerFoot }
+} as const;
+
+export type Quantity = keyof typeof quantityUnits;
+
+export function toMetric(value: number, quantity: Quantity): number {
+	return value * quantityUnits[quantity].metricPerUs;
+}
+
+export function toUs(value: number, quantity: Quantity): number {
+	return value / quantityUnits[quantity].metricPerUs;
+}

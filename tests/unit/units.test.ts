@@ -1,0 +1,100 @@
+import { describe, expect, it } from 'vitest';
+import fc from 'fast-check';
+import {
+	bushelsPerAcreToKgPerHa,
+	bushelsToTonnes,
+	bushelWeightLb,
+	kgPerHaToBushelsPerAcre,
+	quantityUnits,
+	squareFeetPerAcre,
+	toMetric,
+	toUs,
+	tonnesToBushels,
+	hectaresPerAcre,
+	kgPerHaPerLbPerAcre,
+	litresPerGallon,
+	litresPerHaPerGallonPerAcre,
+	kwPerHp,
+	kmhPerMph,
+	tonnesPerHaPerTonPerAcre,
+	type Quantity
+} from '../../src/lib/engine/units';
+
+describe('bushels by crop weight', () => {
+	it('uses the legal bushel weights', () => {
+		// Univ. of Missouri G4020 / FCIC-25010: corn 56, soybean 60, wheat 60, oats 32, barley 48, rye 56 lb/bu
+		expect(bushelWeightLb).toEqual({
+			corn: 56,
+			soybean: 60,
+			wheat: 60,
+			oats: 32,
+			barley: 48,
+			rye: 56
+		});
+	});
+
+	it('converts bushels to tonnes', () => {
+		// Minnesota shippers conversion table: 1 bu corn = 0.025401 t; soybean/wheat 0.027216; barley 0.021772
+		expect(bushelsToTonnes(1, 'corn')).toBeCloseTo(0.025401, 6);
+		expect(bushelsToTonnes(1, 'soybean')).toBeCloseTo(0.027216, 6);
+		expect(bushelsToTonnes(1, 'wheat')).toBeCloseTo(0.027216, 6);
+		expect(bushelsToTonnes(1, 'barley')).toBeCloseTo(0.021772, 6);
+		expect(tonnesToBushels(0.025401, 'corn')).toBeCloseTo(1, 4);
+	});
+
+	it('converts bu/ac to kg/ha', () => {
+		// NDSU ProCrop metric card: 60-lb bu/ac × 67.25; 48-lb 53.80; 32-lb 35.87 kg/ha
+		expect(bushelsPerAcreToKgPerHa(1, 'soybean')).toBeCloseTo(67.25, 2);
+		expect(bushelsPerAcreToKgPerHa(1, 'barley')).toBeCloseTo(53.8, 2);
+		expect(bushelsPerAcreToKgPerHa(1, 'oats')).toBeCloseTo(35.87, 2);
+		// NDSU card prints 62.723 for 56-lb bushels (a misprint); exact 62.768, Minnesota shippers 0.06277 t/ha
+		expect(bushelsPerAcreToKgPerHa(1, 'corn')).toBeCloseTo(62.77, 2);
+		expect(kgPerHaToBushelsPerAcre(62.768, 'corn')).toBeCloseTo(1, 4);
+	});
+});
+
+describe('metric conversions', () => {
+	it('matches the NDSU metric conversion card', () => {
+		// NDSU metric card: 1 acre = 43,560 ft² = 0.40468564 ha
+		expect(squareFeetPerAcre).toBe(43560);
+		expect(hectaresPerAcre).toBeCloseTo(0.40468564, 8);
+		// NDSU metric card: lb/ac × 1.12085 = kg/ha
+		expect(kgPerHaPerLbPerAcre).toBeCloseTo(1.12085, 5);
+		// NDSU metric card: US gallon 3.7854 L; gal/ac × 9.3541 = L/ha
+		expect(litresPerGallon).toBeCloseTo(3.785411784, 9);
+		expect(litresPerHaPerGallonPerAcre).toBeCloseTo(9.354, 3);
+		// NDSU metric card: hp × 0.7457 = kW; mph × 1.609344 = km/h; ton/ac × 2.2417 = t/ha
+		expect(kwPerHp).toBeCloseTo(0.7457, 4);
+		expect(kmhPerMph).toBeCloseTo(1.609344, 6);
+		expect(tonnesPerHaPerTonPerAcre).toBeCloseTo(2.2417, 4);
+	});
+
+	it('round-trips metric → US → metric for every quantity', () => {
+		const quantities = Object.keys(quantityUnits) as Quantity[];
+		fc.assert(
+			fc.property(
+				fc.constantFrom(...quantities),
+				fc.double({ min: 0, max: 1e7, noNaN: true }),
+				(quantity, metricValue) => {
+					const back = toMetric(toUs(metricValue, quantity), quantity);
+					expect(back).toBeCloseTo(metricValue, 6);
+				}
+			)
+		);
+	});
+
+	it('round-trips bushels per acre through kg/ha', () => {
+		fc.assert(
+			fc.property(
+				fc.constantFrom('corn', 'soybean', 'wheat', 'oats', 'barley', 'rye' as const),
+				fc.double({ min: 0, max: 20000, noNaN: true }),
+				(crop, kgPerHa) => {
+					expect(bushelsPerAcreToKgPerHa(kgPerHaToBushelsPerAcre(kgPerHa, crop), crop)).toBeCloseTo(
+						kgPerHa,
+						8
+					);
+				}
+			)
+		);
+	});
+});

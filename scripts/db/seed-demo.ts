@@ -1,0 +1,80 @@
+// Seeds the invented demo: Maple Coulee Farm, its people, a lender and a site administrator.
+// Demo-only: it refuses to run unless FURROWCAST_DEMO=1 (set by `npm start` and `npm test` in .env).
+import { eq } from 'drizzle-orm';
+import { hashPassword } from '../../src/lib/server/auth/password';
+import { createDb } from '../../src/lib/server/db/client';
+import { farms, memberships, users } from '../../src/lib/server/db/schema';
+
+export const DEMO_PASSWORD = 'furrowcast-demo';
+
+const people = {
+	owner: { email: 'owner@furrowcast.test', name: 'Ruth Halvorsen' },
+	partner: { email: 'partner@furrowcast.test', name: 'Tomas Halvorsen' },
+	lender: { email: 'lender@furrowcast.test', name: 'Dana Whitcombe' },
+	admin: { email: 'admin@furrowcast.test', name: 'Site Administrator', isSiteAdmin: true },
+	neighbour: { email: 'birchhollow@furrowcast.test', name: 'Abel Marsh' }
+};
+
+// Invented figures. Labour: two adults, more hours in the spring and harvest months.
+const demoFarms = [
+	{
+		name: 'Maple Coulee Farm',
+		region: 'Upper Midwest',
+		labourHoursByMonth: [180, 180, 220, 300, 340, 280, 260, 260, 300, 340, 260, 180],
+		members: [
+			['owner', 'owner'],
+			['partner', 'editor'],
+			['lender', 'reviewer']
+		]
+	},
+	{
+		name: 'Birch Hollow Farm',
+		region: 'Upper Midwest',
+		labourHoursByMonth: [160, 160, 180, 240, 280, 240, 220, 220, 240, 280, 220, 160],
+		members: [
+			['neighbour', 'owner'],
+			['lender', 'reviewer']
+		]
+	}
+] as const;
+
+if (process.env.FURROWCAST_DEMO !== '1') {
+	console.error(
+		'Refusing to seed demo accounts: set FURROWCAST_DEMO=1 (only for a demo or test database).'
+	);
+	process.exit(1);
+}
+const url = process.env.DATABASE_URL;
+if (!url) throw new Error('DATABASE_URL is not set');
+const { db, pool } = createDb(url);
+
+try {
+	const existing = await db.query.users.findFirst({ where: eq(users.email, people.owner.email) });
+	if (existing) {
+		console.log('demo data already present');
+	} else {
+		const passwordHash = await hashPassword(DEMO_PASSWORD);
+		await db.transaction(async (tx) => {
+			const ids: Record<string, string> = {};
+			for (const [key, person] of Object.entries(people)) {
+				const [row] = await tx
+					.insert(users)
+					.values({ ...person, passwordHash, emailVerified: new Date() })
+					.returning({ id: users.id });
+				ids[key] = row.id;
+			}
+			for (const { members, ...farm } of demoFarms) {
+				const [row] = await tx
+					.insert(farms)
+					.values({ ...farm, labourHoursByMonth: [...farm.labourHoursByMonth] })
+					.returning({ id: farms.id });
+				await tx
+					.insert(memberships)
+					.values(members.map(([person, role]) => ({ farmId: row.id, userId: ids[person], role })));
+			}
+		});
+		console.log('demo data seeded');
+	}
+} finally {
+	await pool.end();
+}

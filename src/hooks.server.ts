@@ -1,0 +1,19 @@
+import type { Handle, HandleServerError } from '@sveltejs/kit';
+import { sequence } from '@sveltejs/kit/hooks';
+import { handle as authHandle } from '$lib/server/auth/auth';
+import { findSessionUser } from '$lib/server/db/users';
+
+/** Puts the signed-in user (still existing, with current site role) on `locals` for every request. */
+const loadUser: Handle = async ({ event, resolve }) => {
+	const session = await event.locals.auth();
+	const id = session?.user?.id;
+	event.locals.user = id ? ((await findSessionUser(id)) ?? null) : null;
+	return resolve(event);
+};
+
+export const handle = sequence(authHandle, loadUser);
+
+export const handleError: HandleServerError = ({ error, event, status }) => {
+	if (status !== 404) console.error(`${event.request.method} ${event.url.pathname}`, error);
+	return { message: status === 404 ? 'Not found.' : 'Something went wrong on our side.' };
+};

@@ -1,0 +1,7 @@
+/** The app's button looks, in one place. */
+export const buttonClass = {
+	primary:
+		'inline-flex min-h-11 items-center justify-center rounded bg-clover-600 px-4 py-2 font-semibold text-white hover:bg-clover-700 focus:ring-2 focus:ring-clover-300 focus:outline-none',
+	secondary:
+		'inline-flex min-h-11 items-center justify-center rounded border border-loam-300 bg-white px-4 py-2 font-semibold text-loam-800 hover:bg-loam-50'
+} as const;

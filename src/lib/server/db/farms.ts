@@ -1,0 +1,102 @@
+import { and, count, eq, sum } from 'drizzle-orm';
+import type { FarmSettings } from '$lib/schemas/farm';
+import { db } from '.';
+import {
+	auditLog,
+	cropPractices,
+	farms,
+	fieldOperations,
+	fields,
+	herds,
+	memberships,
+	plans,
+	priceSets,
+	rotations
+} from './schema';
+
+export async function listFarmsForUser(userId: string) {
+	return db
+		.select({ id: farms.id, name: farms.name, region: farms.region, role: memberships.role })
+		.from(memberships)
+		.innerJoin(farms, eq(farms.id, memberships.farmId))
+		.where(eq(memberships.userId, userId))
+		.orderBy(farms.name);
+}
+
+export async function findMembership(farmId: string, userId: string) {
+	return db.query.memberships.findFirst({
+		where: and(eq(memberships.farmId, farmId), eq(memberships.userId, userId)),
+		with: { farm: true }
+	});
+}
+
+/** Creates a farm with its creator as owner, in one transaction. */
+export async function createFarm(userId: string, settings: FarmSettings) {
+	return db.transaction(async (tx) => {
+		const [farm] = await tx
+			.insert(farms)
+			.values({ ...settings, discountRatePct: settings.discountRatePct.toFixed(2) })
+			.returning({ id: farms.id, name: farms.name });
+		await tx.insert(memberships).values({ farmId: farm.id, userId, role: 'owner' });
+		await tx.insert(auditLog).values({ farmId: farm.id, userId, action: 'farm.created' });
+		return farm;
+	});
+}
+
+export async function updateFarm(farmId: string, userId: string, settings: FarmSettings) {
+	await db.transaction(async (tx) => {
+		await tx
+			.update(farms)
+			.set({ ...settings, discountRatePct: settings.discountRatePct.toFixed(2) })
+			.where(eq(farms.id, farmId));
+		await tx.insert(auditLog).values({ farmId, userId, action: 'farm.updated' });
+	});
+}
+
+/** How far the farm is set up: one count per part, for the farm home's checklist. */
+export async function getFarmSetup(farmId: string) {
+	const [
+		fieldRows,
+		herdRows,
+		priceRows,
+		operationRows,
+		practiceRows,
+		rotationRows,
+		planRows,
+		members
+	] = await Promise.all([
+		db
+			.select({ n: count(), acres: sum(fields.acres) })
+			.from(fields)
+			.where(eq(fields.farmId, farmId)),
+		db
+			.select({ n: count(), head: sum(herds.head) })
+			.from(herds)
+			.where(eq(herds.farmId, farmId)),
+		db.select({ n: count() }).from(priceSets).where(eq(priceSets.farmId, farmId)),
+		db.select({ n: count() }).from(fieldOperations).where(eq(fieldOperations.farmId, farmId)),
+		db.select({ n: count() }).from(cropPractices).where(eq(cropPractices.farmId, farmId)),
+		db.select({ n: count() }).from(rotations).where(eq(rotations.farmId, farmId)),
+		db
+			.select({ n: count(), name: plans.name, isReference: plans.isReference })
+			.from(plans)
+			.where(eq(plans.farmId, farmId))
+			.groupBy(plans.name, plans.isReference),
+		db
+			.select({ n: count(), role: memberships.role })
+			.from(memberships)
+			.where(eq(memberships.farmId, farmId))
+			.groupBy(memberships.role)
+	]);
+	return {
+		fields: { count: fieldRows[0].n, acres: Number(fieldRows[0].acres ?? 0) },
+		herds: { count: herdRows[0].n, head: Number(herdRows[0].head ?? 0) },
+		priceSets: priceRows[0].n,
+		fieldOperations: operationRows[0].n,
+		cropPractices: practiceRows[0].n,
+		rotations: rotationRows[0].n,
+		plans: planRows.reduce((total, row) => total + row.n, 0),
+		referencePlan: planRows.find((row) => row.isReference)?.name ?? null,
+		members: Object.fromEntries(members.map((row) => [row.role, row.n]))
+	};
+}

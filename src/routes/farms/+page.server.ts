@@ -1,0 +1,22 @@
+import { fail, redirect } from '@sveltejs/kit';
+import { farmSettingsFromForm, farmSettingsSchema } from '$lib/schemas/farm';
+import { toFieldErrors } from '$lib/schemas/issues';
+import { requireUser } from '$lib/server/auth/access';
+import { createFarm, listFarmsForUser } from '$lib/server/db/farms';
+import type { Actions, PageServerLoad } from './$types';
+
+export const load = (async (event) => {
+	const user = requireUser(event);
+	return { farms: await listFarmsForUser(user.id) };
+}) satisfies PageServerLoad;
+
+export const actions = {
+	create: async (event) => {
+		const user = requireUser(event);
+		const input = farmSettingsFromForm(await event.request.formData());
+		const parsed = farmSettingsSchema.safeParse(input);
+		if (!parsed.success) return fail(400, { values: input, errors: toFieldErrors(parsed.error) });
+		const farm = await createFarm(user.id, parsed.data);
+		redirect(303, `/farms/${farm.id}`);
+	}
+} satisfies Actions;

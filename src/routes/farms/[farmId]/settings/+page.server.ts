@@ -1,0 +1,31 @@
+import { fail, redirect } from '@sveltejs/kit';
+import { farmSettingsFromForm, farmSettingsSchema } from '$lib/schemas/farm';
+import { toFieldErrors } from '$lib/schemas/issues';
+import { requireFarmAccess } from '$lib/server/auth/access';
+import { updateFarm } from '$lib/server/db/farms';
+import type { Actions, PageServerLoad } from './$types';
+
+export const load = (async (event) => {
+	const { farm } = await requireFarmAccess(event, event.params.farmId, 'farm:edit');
+	return {
+		farm: {
+			id: farm.id,
+			name: farm.name,
+			region: farm.region,
+			unitSystem: farm.unitSystem,
+			labourHoursByMonth: farm.labourHoursByMonth,
+			discountRatePct: Number(farm.discountRatePct)
+		}
+	};
+}) satisfies PageServerLoad;
+
+export const actions = {
+	default: async (event) => {
+		const { user, farm } = await requireFarmAccess(event, event.params.farmId, 'farm:edit');
+		const input = farmSettingsFromForm(await event.request.formData());
+		const parsed = farmSettingsSchema.safeParse(input);
+		if (!parsed.success) return fail(400, { values: input, errors: toFieldErrors(parsed.error) });
+		await updateFarm(farm.id, user.id, parsed.data);
+		redirect(303, `/farms/${farm.id}`);
+	}
+} satisfies Actions;

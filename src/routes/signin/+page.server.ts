@@ -27,7 +27,8 @@ export const actions = {
 		if (!parsed.success) {
 			return fail(400, {
 				email: String(form.get('email') ?? ''),
-				errors: toFieldErrors(parsed.error)
+				errors: toFieldErrors(parsed.error),
+				failure: null
 			});
 		}
 		try {

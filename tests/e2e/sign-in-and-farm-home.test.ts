@@ -1,0 +1,93 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { BrowserContext } from 'playwright-core';
+import { openBrowser, screenshot, signInAs, viewports } from '../support/browser';
+import { demoUsers } from '../support/server';
+
+let context: BrowserContext;
+let close: () => Promise<void>;
+
+beforeAll(async () => {
+	({ context, close } = await openBrowser());
+});
+afterAll(() => close());
+
+describe.each(Object.entries(viewports))('at %s width', (name, viewport) => {
+	it('the owner signs in, opens the farm and sees what is set up', async () => {
+		await context.clearCookies();
+		const page = await context.newPage();
+		await page.setViewportSize(viewport);
+		await page.goto('/signin');
+		await screenshot(page, `sign-in-${name}`);
+		await signInAs(page, demoUsers.owner);
+		await page.waitForURL('**/farms');
+		await expect(
+			page.getByTestId('farm-list').getByText('Maple Coulee Farm').isVisible()
+		).resolves.toBe(true);
+		await page.getByText('Maple Coulee Farm').click();
+		await page.waitForURL(/\/farms\/[0-9a-f-]{36}$/);
+		await expect(page.getByRole('heading', { level: 1 }).textContent()).resolves.toBe(
+			'Maple Coulee Farm'
+		);
+		await expect(page.getByTestId('setup-summary').textContent()).resolves.toMatch(
+			/parts still missing|in place/
+		);
+		await expect(
+			page.getByText('Nitrogen rates must follow local regulations').isVisible()
+		).resolves.toBe(true);
+		// Nothing may be wider than the window: tables scroll inside their own box.
+		const overflow = await page.evaluate(
+			() => document.documentElement.scrollWidth - window.innerWidth
+		);
+		expect(overflow).toBeLessThanOrEqual(0);
+		await screenshot(page, `farm-home-${name}`);
+		await page.close();
+	});
+});
+
+describe('refusals in the browser', () => {
+	it('a wrong password shows a message and stays on the sign-in page', async () => {
+		await context.clearCookies();
+		const page = await context.newPage();
+		await signInAs(page, demoUsers.partner, 'wrong-password');
+		await expect(page.getByRole('alert').textContent()).resolves.toContain(
+			'do not match an account'
+		);
+		expect(new URL(page.url()).pathname).toBe('/signin');
+		await page.close();
+	});
+
+	it('the lender sees the farm but is refused its settings page', async () => {
+		await context.clearCookies();
+		const page = await context.newPage();
+		await signInAs(page, demoUsers.lender);
+		await page.waitForURL('**/farms');
+		await page.getByText('Maple Coulee Farm').click();
+		await page.waitForURL(/\/farms\/[0-9a-f-]{36}$/);
+		await expect(page.getByText('Farm settings').count()).resolves.toBe(0);
+		const response = await page.goto(page.url() + '/settings');
+		expect(response?.status()).toBe(403);
+		await expect(page.getByRole('heading', { level: 1 }).textContent()).resolves.toContain(
+			'may not do this'
+		);
+		await page.close();
+	});
+
+	it('a malformed sign-up shows a message beside each field', async () => {
+		await context.clearCookies();
+		const page = await context.newPage();
+		await page.setViewportSize(viewports.phone);
+		await page.goto('/register');
+		await page.getByLabel('E-mail').fill('nobody-at-all');
+		await page.getByLabel('Password', { exact: true }).fill('short');
+		await page.getByRole('button', { name: 'Create account' }).click();
+		await page.waitForSelector('[data-error-for="email"]');
+		await expect(page.locator('[data-error-for="name"]').textContent()).resolves.toBe(
+			'Enter your name.'
+		);
+		await expect(page.locator('[data-error-for="password"]').textContent()).resolves.toBe(
+			'Use at least 8 characters.'
+		);
+		await screenshot(page, 'register-errors-phone');
+		await page.close();
+	});
+});

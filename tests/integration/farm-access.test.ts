@@ -1,0 +1,164 @@
+import { eq } from 'drizzle-orm';
+import { beforeAll, describe, expect, it } from 'vitest';
+import { farms, memberships } from '../../src/lib/server/db/schema';
+import { testDb } from '../support/db';
+import { newUser, signedIn, type Client } from '../support/http';
+import { demoUsers } from '../support/server';
+
+const db = testDb();
+const months = Array(12).fill(200);
+const validSettings = {
+	name: 'Maple Coulee Farm',
+	region: 'Upper Midwest',
+	unitSystem: 'us',
+	labourHoursByMonth: months,
+	discountRatePct: 6
+};
+
+let owner: Client;
+let partner: Client;
+let lender: Client;
+let mapleId: string;
+let birchId: string;
+
+beforeAll(async () => {
+	[owner, partner, lender] = await Promise.all([
+		signedIn(demoUsers.owner),
+		signedIn(demoUsers.partner),
+		signedIn(demoUsers.lender)
+	]);
+	const { farms: list } = await (await lender.fetch('/api/v1/farms')).json();
+	mapleId = list.find((f: { name: string }) => f.name === 'Maple Coulee Farm').id;
+	birchId = list.find((f: { name: string }) => f.name === 'Birch Hollow Farm').id;
+});
+
+const farmRow = (id: string) => db.query.farms.findFirst({ where: eq(farms.id, id) });
+
+describe('a non-member', () => {
+	it('gets 404 for another farm’s page and API, as if it did not exist', async () => {
+		const page = await owner.fetch(`/farms/${birchId}`, { headers: { Accept: 'text/html' } });
+		expect(page.status).toBe(404);
+		expect(await page.text()).not.toContain('Birch Hollow');
+		const api = await owner.fetch(`/api/v1/farms/${birchId}`);
+		expect(api.status).toBe(404);
+		const missing = await owner.fetch(`/api/v1/farms/${crypto.randomUUID()}`);
+		expect(missing.status).toBe(404);
+		// The same answer as for a farm that does not exist: no hint that it does.
+		expect(await api.json()).toEqual(await missing.json());
+		expect((await owner.fetch('/api/v1/farms/not-a-uuid')).status).toBe(404);
+	});
+
+	it('cannot change another farm through the API', async () => {
+		const before = await farmRow(birchId);
+		const response = await owner.json(`/api/v1/farms/${birchId}`, 'PUT', {
+			...validSettings,
+			name: 'Taken'
+		});
+		expect(response.status).toBe(404);
+		expect(await farmRow(birchId)).toEqual(before);
+	});
+});
+
+describe('a reviewer (the lender)', () => {
+	it('can read the farm', async () => {
+		const page = await lender.fetch(`/farms/${mapleId}`, { headers: { Accept: 'text/html' } });
+		expect(page.status).toBe(200);
+		expect(await page.text()).toContain('Maple Coulee Farm');
+		const api = await lender.fetch(`/api/v1/farms/${mapleId}`);
+		expect(api.status).toBe(200);
+		expect((await api.json()).role).toBe('reviewer');
+	});
+
+	it('is refused (403) on every edit route and nothing changes', async () => {
+		const before = await farmRow(mapleId);
+		const page = await lender.fetch(`/farms/${mapleId}/settings`, {
+			headers: { Accept: 'text/html' }
+		});
+		expect(page.status).toBe(403);
+		const action = await lender.postForm(`/farms/${mapleId}/settings`, {
+			name: 'Renamed by reviewer',
+			unitSystem: 'us',
+			labourHours: months.map(String),
+			discountRatePct: '6'
+		});
+		expect(action.status).toBe(403);
+		const api = await lender.json(`/api/v1/farms/${mapleId}`, 'PUT', {
+			...validSettings,
+			name: 'Renamed'
+		});
+		expect(api.status).toBe(403);
+		expect(await farmRow(mapleId)).toEqual(before);
+	});
+});
+
+describe('an editor (the family partner)', () => {
+	it('saves farm settings through the form and the API', async () => {
+		const saved = await partner.postForm(`/farms/${mapleId}/settings`, {
+			name: 'Maple Coulee Farm',
+			region: 'Upper Midwest, east coulee',
+			unitSystem: 'us',
+			labourHours: months.map(String),
+			discountRatePct: '6.5'
+		});
+		expect(saved.status).toBe(303);
+		expect((await farmRow(mapleId))?.region).toBe('Upper Midwest, east coulee');
+		const api = await partner.json(`/api/v1/farms/${mapleId}`, 'PUT', validSettings);
+		expect(api.status).toBe(200);
+		const row = await farmRow(mapleId);
+		expect([row?.region, row?.discountRatePct]).toEqual(['Upper Midwest', '6.00']);
+	});
+
+	it('gets field-named messages for bad settings, and nothing is saved', async () => {
+		const before = await farmRow(mapleId);
+		const form = await partner.postForm(`/farms/${mapleId}/settings`, {
+			name: '',
+			unitSystem: 'furlongs',
+			labourHours: ['200', '-5', ...months.slice(2).map(String)],
+			discountRatePct: 'lots'
+		});
+		expect(form.status).toBe(400);
+		const html = await form.text();
+		expect(html).toContain('Enter the farm name.');
+		expect(html).toContain('Hours cannot be negative.');
+		expect(html).toContain('Enter the rate as a number.');
+		const api = await partner.json(`/api/v1/farms/${mapleId}`, 'PUT', {
+			...validSettings,
+			labourHoursByMonth: [1, 2, 3]
+		});
+		expect(api.status).toBe(422);
+		expect((await api.json()).issues).toEqual([
+			{ path: 'labourHoursByMonth', message: 'Give labour hours for all 12 months.' }
+		]);
+		expect(await farmRow(mapleId)).toEqual(before);
+	});
+});
+
+describe('POST /api/v1/farms', () => {
+	it('creates a farm with the caller as owner', async () => {
+		const newcomer = await newUser('farm-creator');
+		const response = await newcomer.json('/api/v1/farms', 'POST', {
+			...validSettings,
+			name: 'Lender Test Plot'
+		});
+		expect(response.status).toBe(201);
+		const { farm } = await response.json();
+		expect(farm).toMatchObject({ name: 'Lender Test Plot', role: 'owner' });
+		const member = await db.query.memberships.findFirst({ where: eq(memberships.farmId, farm.id) });
+		expect(member?.role).toBe('owner');
+	});
+
+	it('answers 422 naming each bad field, 400 for a body that is not JSON, and saves nothing', async () => {
+		const before = await db.$count(farms);
+		const invalid = await lender.json('/api/v1/farms', 'POST', { name: '  ', unitSystem: 'us' });
+		expect(invalid.status).toBe(422);
+		const { issues } = await invalid.json();
+		expect(issues.map((i: { path: string }) => i.path).sort()).toEqual([
+			'discountRatePct',
+			'labourHoursByMonth',
+			'name'
+		]);
+		const notJson = await lender.json('/api/v1/farms', 'POST', '{"name": ');
+		expect(notJson.status).toBe(400);
+		expect(await db.$count(farms)).toBe(before);
+	});
+});

@@ -1,0 +1,94 @@
+import { baseUrl, DEMO_PASSWORD } from './server';
+
+/** A signed-in (or anonymous) client: keeps its cookies and sends the Origin SvelteKit checks on POSTs. */
+export class Client {
+	private cookies = new Map<string, string>();
+
+	async fetch(path: string, init: RequestInit = {}): Promise<Response> {
+		const headers = new Headers(init.headers);
+		headers.set('Origin', baseUrl);
+		if (this.cookies.size) {
+			headers.set('Cookie', [...this.cookies].map(([k, v]) => `${k}=${v}`).join('; '));
+		}
+		const response = await fetch(baseUrl + path, { ...init, headers, redirect: 'manual' });
+		for (const cookie of response.headers.getSetCookie()) {
+			const [pair] = cookie.split(';');
+			const [name, ...value] = pair.split('=');
+			if (value.join('=') === '') this.cookies.delete(name);
+			else this.cookies.set(name, value.join('='));
+		}
+		return response;
+	}
+
+	/** Posts a form the way a browser without JavaScript does. */
+	postForm(path: string, fields: Record<string, string | string[]>): Promise<Response> {
+		const body = new URLSearchParams();
+		for (const [key, value] of Object.entries(fields)) {
+			for (const item of Array.isArray(value) ? value : [value]) body.append(key, item);
+		}
+		return this.fetch(path, { method: 'POST', body, headers: { Accept: 'text/html' } });
+	}
+
+	/** Calls a form action the way `use:enhance` does: JSON answer with `type` and `status`. */
+	async action(path: string, fields: Record<string, string | string[]>) {
+		const body = new URLSearchParams();
+		for (const [key, value] of Object.entries(fields)) {
+			for (const item of Array.isArray(value) ? value : [value]) body.append(key, item);
+		}
+		const response = await this.fetch(path, {
+			method: 'POST',
+			body,
+			headers: { Accept: 'application/json', 'x-sveltekit-action': 'true' }
+		});
+		return (await response.json()) as {
+			type: string;
+			status: number;
+			data?: string;
+			location?: string;
+		};
+	}
+
+	json(path: string, method: string, body: unknown): Promise<Response> {
+		return this.fetch(path, {
+			method,
+			body: typeof body === 'string' ? body : JSON.stringify(body),
+			headers: { 'Content-Type': 'application/json', Accept: 'application/json' }
+		});
+	}
+
+	hasSession(): boolean {
+		return [...this.cookies.keys()].some((name) => name.includes('authjs.session-token'));
+	}
+
+	async signIn(email: string, password = DEMO_PASSWORD): Promise<Response> {
+		return this.postForm('/signin', {
+			providerId: 'credentials',
+			redirectTo: '/farms',
+			email,
+			password
+		});
+	}
+}
+
+export async function signedIn(email: string): Promise<Client> {
+	const client = new Client();
+	const response = await client.signIn(email);
+	if (!client.hasSession())
+		throw new Error(`sign-in as ${email} failed with HTTP ${response.status}`);
+	return client;
+}
+
+/** A new account of its own, signed in, for tests that create things. */
+export async function newUser(label: string): Promise<Client> {
+	const client = new Client();
+	const password = 'a-long-test-password';
+	await client.postForm('/register', {
+		providerId: 'credentials',
+		name: `Test ${label}`,
+		email: `${label}-${crypto.randomUUID().slice(0, 8)}@example.test`,
+		password,
+		confirmPassword: password
+	});
+	if (!client.hasSession()) throw new Error(`registering a ${label} user failed`);
+	return client;
+}

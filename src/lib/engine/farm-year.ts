@@ -1,0 +1,111 @@
+import type { Herd, PriceSet } from '../schemas/plan-file';
+import { feedingYear } from './forage';
+import type { FieldYearResult } from './field-year';
+
+export interface FarmYearResult {
+	year: number;
+	acres: number;
+	revenueUsd: number;
+	fieldCostsUsd: number;
+	hayCostUsd: number;
+	choreLabourUsd: number;
+	costsUsd: number;
+	netReturnUsd: number;
+	netReturnUsdPerAcre: number;
+	/** Net return before the labour charge, per hour the family works (field work and chores). */
+	netReturnUsdPerFamilyLabourHour: number | null;
+	nitrogenPurchasedLb: number;
+	dieselGallons: number;
+	machineHours: number;
+	fieldLabourHours: number;
+	choreHours: number;
+	choreHoursByMonth: number[];
+	labourHours: number;
+	labourHoursByMonth: number[];
+	labourHoursAvailableByMonth: number[];
+	labourShortfallHoursByMonth: number[];
+	animalUnits: number;
+	herdDemandAuDays: number;
+	grazingAuDaysOffered: number;
+	grazingAuDays: number;
+	grazingDays: number;
+	hayFeedingDays: number;
+	hayDmLb: number;
+	hayBales: number;
+}
+
+/** Whole-farm totals for one year: the field-years summed, then the herd fed by grazing and hay. */
+export function evaluateFarmYear(
+	year: number,
+	fieldYears: FieldYearResult[],
+	herd: Herd | null,
+	prices: PriceSet,
+	labourHoursAvailableByMonth: number[]
+): FarmYearResult {
+	let acres = 0;
+	let revenueUsd = 0;
+	let fieldCostsUsd = 0;
+	let fieldLabourUsd = 0;
+	let nitrogenPurchasedLb = 0;
+	let dieselGallons = 0;
+	let machineHours = 0;
+	let fieldLabourHours = 0;
+	let grazingAuDaysOffered = 0;
+	const labourHoursByMonth = new Array<number>(12).fill(0);
+	for (const fy of fieldYears) {
+		acres += fy.acres;
+		revenueUsd += fy.revenueUsd;
+		fieldCostsUsd += fy.costsUsd;
+		fieldLabourUsd += fy.operationCosts.labourUsd;
+		nitrogenPurchasedLb += fy.nitrogen.purchasedLb;
+		dieselGallons += fy.dieselGallons;
+		machineHours += fy.machineHours;
+		fieldLabourHours += fy.labourHours;
+		grazingAuDaysOffered += fy.forage.grazingAuDays;
+		for (let m = 0; m < 12; m++) labourHoursByMonth[m] += fy.labourHoursByMonth[m];
+	}
+
+	const feeding = herd ? feedingYear(herd, grazingAuDaysOffered) : null;
+	const choreHours = feeding?.choreHours ?? 0;
+	if (feeding) for (let m = 0; m < 12; m++) labourHoursByMonth[m] += feeding.choreHoursByMonth[m];
+	const hayBales = feeding?.hayBales ?? 0;
+	const hayCostUsd = hayBales * prices.hayUsdPerBale;
+	const choreLabourUsd = choreHours * prices.labourUsdPerHour;
+	const costsUsd = fieldCostsUsd + hayCostUsd + choreLabourUsd;
+	const netReturnUsd = revenueUsd - costsUsd;
+	const labourHours = fieldLabourHours + choreHours;
+
+	return {
+		year,
+		acres,
+		revenueUsd,
+		fieldCostsUsd,
+		hayCostUsd,
+		choreLabourUsd,
+		costsUsd,
+		netReturnUsd,
+		netReturnUsdPerAcre: netReturnUsd / acres,
+		netReturnUsdPerFamilyLabourHour:
+			labourHours > 0 ? (netReturnUsd + fieldLabourUsd + choreLabourUsd) / labourHours : null,
+		nitrogenPurchasedLb,
+		dieselGallons,
+		machineHours,
+		fieldLabourHours,
+		choreHours,
+		choreHoursByMonth: feeding?.choreHoursByMonth ?? new Array<number>(12).fill(0),
+		labourHours,
+		labourHoursByMonth,
+		labourHoursAvailableByMonth,
+		labourShortfallHoursByMonth: labourHoursByMonth.map((h, m) =>
+			Math.max(h - labourHoursAvailableByMonth[m], 0)
+		),
+		animalUnits: feeding?.animalUnits ?? 0,
+		herdDemandAuDays: feeding?.herdDemandAuDays ?? 0,
+		grazingAuDaysOffered,
+		grazingAuDays: feeding?.grazingAuDays ?? 0,
+		grazingDays: feeding?.grazingDays ?? 0,
+		hayFeedingDays: feeding?.hayFeedingDays ?? 0,
+		hayDmLb: feeding?.hayDmLb ?? 0,
+		hayBales
+	};
+}

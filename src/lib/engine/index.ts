@@ -1,0 +1,136 @@
+import type { FieldIssue } from '../schemas/issues';
+import type { PlanDocument } from '../schemas/plan-file';
+import { evaluateFarmYear, type FarmYearResult } from './farm-year';
+import {
+	creditsForNextYear,
+	evaluateFieldYear,
+	type CarriedCredits,
+	type FieldYearResult
+} from './field-year';
+import { partialBudget, yearItems, type PartialBudget } from './partial-budget';
+
+export type { FarmYearResult } from './farm-year';
+export type { FieldYearResult, NitrogenLedger, OperationResult } from './field-year';
+export type { BudgetLine, BudgetParts, PartialBudget, PartialBudgetYear } from './partial-budget';
+
+export interface PlanResult {
+	formatVersion: 1;
+	plan: {
+		name: string;
+		farmName: string;
+		region: string;
+		unitSystem: 'us' | 'metric';
+		startYear: number;
+		years: number;
+		acres: number;
+		fieldCount: number;
+		assumptions: string[];
+	};
+	fieldYears: FieldYearResult[];
+	farmYears: FarmYearResult[];
+	partialBudget?: PartialBudget;
+}
+
+function planYears(plan: PlanDocument): number[] {
+	const { startYear, years } = plan.plan.horizon;
+	return Array.from({ length: years }, (_, i) => startYear + i);
+}
+
+function evaluateYears(plan: PlanDocument) {
+	const practiceById = new Map(plan.practices.map((p) => [p.id, p]));
+	const rotationById = new Map(plan.rotations.map((r) => [r.id, r]));
+	const operationsById = new Map(plan.operations.map((o) => [o.id, o]));
+	const priceSetByYear = new Map(plan.priceSets.map((p) => [p.year, p]));
+	const assignmentByField = new Map(plan.plan.fieldRotations.map((a) => [a.fieldId, a]));
+	const credits = new Map<string, CarriedCredits>(
+		plan.fields.map((f) => [
+			f.id,
+			{
+				priorCropCreditLbPerAcre: f.priorCropNitrogenCreditLbPerAcre,
+				coverCreditLbPerAcre: 0,
+				manureCreditLbPerAcre: 0
+			}
+		])
+	);
+
+	const fieldYears: FieldYearResult[] = [];
+	const farmYears: FarmYearResult[] = [];
+	const items = [];
+	for (const [i, year] of planYears(plan).entries()) {
+		const prices = priceSetByYear.get(year)!;
+		const thisYear: FieldYearResult[] = [];
+		for (const field of plan.fields) {
+			const assignment = assignmentByField.get(field.id)!;
+			const rotation = rotationById.get(assignment.rotationId)!;
+			const phase = (assignment.startingPhase - 1 + i) % rotation.practices.length;
+			const practice = practiceById.get(rotation.practices[phase])!;
+			const result = evaluateFieldYear({
+				field,
+				year,
+				rotationId: rotation.id,
+				practice,
+				prices,
+				herd: plan.herd,
+				operationsById,
+				interestRatePercent: plan.farm.interestRatePercent,
+				credits: credits.get(field.id)!
+			});
+			credits.set(field.id, creditsForNextYear(practice, result, plan.herd));
+			thisYear.push(result);
+		}
+		const farmYear = evaluateFarmYear(
+			year,
+			thisYear,
+			plan.herd,
+			prices,
+			plan.farm.labourHoursAvailableByMonth
+		);
+		fieldYears.push(...thisYear);
+		farmYears.push(farmYear);
+		items.push({ year, items: yearItems(thisYear, farmYear) });
+	}
+	return { fieldYears, farmYears, items };
+}
+
+/** Years of the plan the reference plan does not cover: a partial budget needs both for every year. */
+export function referenceHorizonIssues(plan: PlanDocument, reference: PlanDocument): FieldIssue[] {
+	const referenceYears = new Set(planYears(reference));
+	return planYears(plan)
+		.filter((year) => !referenceYears.has(year))
+		.map((year) => ({
+			path: 'plan.horizon',
+			message: `The reference plan "${reference.plan.name}" does not cover ${year}`
+		}));
+}
+
+/**
+ * Evaluates a validated plan document: every field-year, every farm-year and, given a reference plan
+ * covering the same years, the partial budget of the plan against it.
+ */
+export function evaluatePlan(plan: PlanDocument, reference?: PlanDocument): PlanResult {
+	const { fieldYears, farmYears, items } = evaluateYears(plan);
+	const acres = plan.fields.reduce((sum, f) => sum + f.acres, 0);
+	const result: PlanResult = {
+		formatVersion: 1,
+		plan: {
+			name: plan.plan.name,
+			farmName: plan.farm.name,
+			region: plan.farm.region,
+			unitSystem: plan.farm.unitSystem,
+			startYear: plan.plan.horizon.startYear,
+			years: plan.plan.horizon.years,
+			acres,
+			fieldCount: plan.fields.length,
+			assumptions: plan.plan.assumptions
+		},
+		fieldYears,
+		farmYears
+	};
+	if (reference) {
+		const mismatch = referenceHorizonIssues(plan, reference);
+		if (mismatch.length) throw new Error(mismatch.map((m) => m.message).join('; '));
+		const referenceItems = new Map(evaluateYears(reference).items.map((y) => [y.year, y.items]));
+		result.partialBudget = partialBudget(reference.plan.name, acres, items, referenceItems);
+	}
+	return result;
+}

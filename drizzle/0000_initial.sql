@@ -1,4 +1,7 @@
 CREATE TYPE "public"."farm_role" AS ENUM('owner', 'editor', 'reviewer');--> statement-breakpoint
+CREATE TYPE "public"."fuel_basis" AS ENUM('per-acre', 'pto-power');--> statement-breakpoint
+CREATE TYPE "public"."operation_by" AS ENUM('own', 'custom');--> statement-breakpoint
+CREATE TYPE "public"."price_item_kind" AS ENUM('crop', 'seed-per-thousand-seeds', 'seed-per-lb', 'custom-rate-per-acre');--> statement-breakpoint
 CREATE TYPE "public"."review_decision" AS ENUM('approved', 'changes_requested');--> statement-breakpoint
 CREATE TYPE "public"."unit_system" AS ENUM('us', 'metric');--> statement-breakpoint
 CREATE TABLE "accounts" (
@@ -36,12 +39,11 @@ CREATE TABLE "comments" (
 CREATE TABLE "crop_practices" (
 	"id" uuid PRIMARY KEY DEFAULT gen_random_uuid() NOT NULL,
 	"farm_id" uuid NOT NULL,
+	"key" text NOT NULL,
 	"name" text NOT NULL,
 	"crop" text NOT NULL,
-	"yield_goal" numeric(10, 2) NOT NULL,
-	"row_spacing_in" numeric(5, 1),
-	"seed_usd_per_acre" numeric(8, 2) NOT NULL,
-	"nitrogen_applied_lb_per_acre" numeric(7, 2) NOT NULL,
+	"yield_goal_per_acre" numeric(10, 2) NOT NULL,
+	"other_fertiliser_usd_per_acre" numeric(8, 2) NOT NULL,
 	"chemicals_usd_per_acre" numeric(8, 2) NOT NULL,
 	"detail" jsonb NOT NULL,
 	"created_at" timestamp with time zone DEFAULT now() NOT NULL,
@@ -53,8 +55,8 @@ CREATE TABLE "farms" (
 	"name" text NOT NULL,
 	"region" text DEFAULT '' NOT NULL,
 	"unit_system" "unit_system" DEFAULT 'us' NOT NULL,
-	"labour_hours_by_month" jsonb NOT NULL,
-	"discount_rate_pct" numeric(5, 2) DEFAULT '6.00' NOT NULL,
+	"labour_hours_available_by_month" jsonb NOT NULL,
+	"interest_rate_percent" numeric(5, 2) DEFAULT 6 NOT NULL,
 	"created_at" timestamp with time zone DEFAULT now() NOT NULL,
 	"updated_at" timestamp with time zone DEFAULT now() NOT NULL
 );
@@ -62,15 +64,19 @@ CREATE TABLE "farms" (
 CREATE TABLE "field_operations" (
 	"id" uuid PRIMARY KEY DEFAULT gen_random_uuid() NOT NULL,
 	"farm_id" uuid NOT NULL,
+	"key" text NOT NULL,
 	"name" text NOT NULL,
-	"kind" text NOT NULL,
-	"speed_mph" numeric(5, 2) NOT NULL,
-	"width_ft" numeric(6, 2) NOT NULL,
-	"field_efficiency_pct" numeric(5, 2) NOT NULL,
-	"diesel_gal_per_acre" numeric(6, 3) NOT NULL,
-	"labour_factor" numeric(4, 2) NOT NULL,
+	"by" "operation_by" NOT NULL,
 	"month" smallint NOT NULL,
-	"repair_usd_per_acre" numeric(8, 2) NOT NULL,
+	"speed_mph" numeric(5, 2),
+	"width_ft" numeric(6, 2),
+	"field_efficiency_percent" numeric(5, 2),
+	"fuel_basis" "fuel_basis",
+	"diesel_gallons_per_acre" numeric(6, 3),
+	"tractor_max_pto_hp" numeric(6, 1),
+	"diesel_gallons_per_hp_hour" numeric(6, 4),
+	"labour_factor" numeric(4, 2),
+	"repairs_usd_per_acre" numeric(8, 2),
 	"created_at" timestamp with time zone DEFAULT now() NOT NULL,
 	"updated_at" timestamp with time zone DEFAULT now() NOT NULL
 );
@@ -78,10 +84,12 @@ CREATE TABLE "field_operations" (
 CREATE TABLE "fields" (
 	"id" uuid PRIMARY KEY DEFAULT gen_random_uuid() NOT NULL,
 	"farm_id" uuid NOT NULL,
+	"key" text NOT NULL,
 	"name" text NOT NULL,
 	"acres" numeric(10, 2) NOT NULL,
-	"productivity_index" numeric(4, 2) DEFAULT '1.00' NOT NULL,
+	"productivity_index" numeric(4, 2) DEFAULT 1 NOT NULL,
 	"prior_crop" text DEFAULT '' NOT NULL,
+	"prior_crop_nitrogen_credit_lb_per_acre" numeric(7, 2) DEFAULT 0 NOT NULL,
 	"notes" text DEFAULT '' NOT NULL,
 	"created_at" timestamp with time zone DEFAULT now() NOT NULL,
 	"updated_at" timestamp with time zone DEFAULT now() NOT NULL
@@ -90,19 +98,22 @@ CREATE TABLE "fields" (
 CREATE TABLE "herds" (
 	"id" uuid PRIMARY KEY DEFAULT gen_random_uuid() NOT NULL,
 	"farm_id" uuid NOT NULL,
-	"name" text NOT NULL,
 	"head" integer NOT NULL,
 	"average_weight_lb" numeric(8, 1) NOT NULL,
 	"intake_lb_dm_per_au_day" numeric(6, 2) NOT NULL,
-	"feeding_season_days" integer NOT NULL,
+	"feeding_season_start_month" smallint NOT NULL,
+	"feeding_season_days" smallint NOT NULL,
+	"max_grazing_days" smallint,
 	"bale_weight_lb" numeric(8, 1) NOT NULL,
-	"bale_dry_matter_pct" numeric(5, 2) NOT NULL,
-	"feeding_waste_pct" numeric(5, 2) NOT NULL,
-	"hay_price_usd_per_bale" numeric(10, 2) NOT NULL,
+	"bale_dry_matter_percent" numeric(5, 2) NOT NULL,
+	"feeding_waste_percent" numeric(5, 2) NOT NULL,
 	"chore_hours_per_day_feeding_hay" numeric(5, 2) NOT NULL,
 	"chore_hours_per_day_grazing" numeric(5, 2) NOT NULL,
+	"manure_nitrogen_lb_per_au_day" numeric(6, 3) NOT NULL,
+	"manure_nitrogen_available_percent" numeric(5, 2) NOT NULL,
 	"created_at" timestamp with time zone DEFAULT now() NOT NULL,
-	"updated_at" timestamp with time zone DEFAULT now() NOT NULL
+	"updated_at" timestamp with time zone DEFAULT now() NOT NULL,
+	CONSTRAINT "herds_farmId_unique" UNIQUE("farm_id")
 );
 --> statement-breakpoint
 CREATE TABLE "invitations" (
@@ -142,7 +153,8 @@ CREATE TABLE "plan_versions" (
 	"version" integer NOT NULL,
 	"start_year" smallint NOT NULL,
 	"years" smallint NOT NULL,
-	"assumptions" jsonb NOT NULL,
+	"assumptions" jsonb DEFAULT '[]'::jsonb NOT NULL,
+	"notes" text DEFAULT '' NOT NULL,
 	"saved_by_id" uuid,
 	"created_at" timestamp with time zone DEFAULT now() NOT NULL
 );
@@ -160,24 +172,29 @@ CREATE TABLE "plans" (
 --> statement-breakpoint
 CREATE TABLE "practice_operations" (
 	"practice_id" uuid NOT NULL,
-	"operation_id" uuid NOT NULL,
 	"sequence" smallint NOT NULL,
+	"operation_id" uuid NOT NULL,
+	"month" smallint,
+	"passes" smallint DEFAULT 1 NOT NULL,
 	CONSTRAINT "practice_operations_practice_id_sequence_pk" PRIMARY KEY("practice_id","sequence")
 );
 --> statement-breakpoint
 CREATE TABLE "price_set_items" (
 	"price_set_id" uuid NOT NULL,
-	"item" text NOT NULL,
-	"unit" text NOT NULL,
+	"kind" "price_item_kind" NOT NULL,
+	"key" text NOT NULL,
 	"price_usd" numeric(12, 4) NOT NULL,
-	CONSTRAINT "price_set_items_price_set_id_item_pk" PRIMARY KEY("price_set_id","item")
+	CONSTRAINT "price_set_items_price_set_id_kind_key_pk" PRIMARY KEY("price_set_id","kind","key")
 );
 --> statement-breakpoint
 CREATE TABLE "price_sets" (
 	"id" uuid PRIMARY KEY DEFAULT gen_random_uuid() NOT NULL,
 	"farm_id" uuid NOT NULL,
 	"year" smallint NOT NULL,
-	"name" text NOT NULL,
+	"nitrogen_usd_per_lb" numeric(10, 4) NOT NULL,
+	"diesel_usd_per_gallon" numeric(10, 4) NOT NULL,
+	"labour_usd_per_hour" numeric(10, 2) NOT NULL,
+	"hay_usd_per_bale" numeric(10, 2) NOT NULL,
 	"created_at" timestamp with time zone DEFAULT now() NOT NULL,
 	"updated_at" timestamp with time zone DEFAULT now() NOT NULL
 );
@@ -201,6 +218,7 @@ CREATE TABLE "rotation_steps" (
 CREATE TABLE "rotations" (
 	"id" uuid PRIMARY KEY DEFAULT gen_random_uuid() NOT NULL,
 	"farm_id" uuid NOT NULL,
+	"key" text NOT NULL,
 	"name" text NOT NULL,
 	"created_at" timestamp with time zone DEFAULT now() NOT NULL,
 	"updated_at" timestamp with time zone DEFAULT now() NOT NULL
@@ -270,16 +288,17 @@ ALTER TABLE "rotations" ADD CONSTRAINT "rotations_farm_id_farms_id_fk" FOREIGN K
 ALTER TABLE "sessions" ADD CONSTRAINT "sessions_user_id_users_id_fk" FOREIGN KEY ("user_id") REFERENCES "public"."users"("id") ON DELETE cascade ON UPDATE no action;--> statement-breakpoint
 CREATE INDEX "audit_log_farm_id_created_at_index" ON "audit_log" USING btree ("farm_id","created_at");--> statement-breakpoint
 CREATE INDEX "comments_plan_version_id_index" ON "comments" USING btree ("plan_version_id");--> statement-breakpoint
-CREATE UNIQUE INDEX "crop_practices_farm_id_name_index" ON "crop_practices" USING btree ("farm_id","name");--> statement-breakpoint
-CREATE UNIQUE INDEX "field_operations_farm_id_name_index" ON "field_operations" USING btree ("farm_id","name");--> statement-breakpoint
-CREATE UNIQUE INDEX "fields_farm_id_name_index" ON "fields" USING btree ("farm_id","name");--> statement-breakpoint
-CREATE INDEX "herds_farm_id_index" ON "herds" USING btree ("farm_id");--> statement-breakpoint
+CREATE UNIQUE INDEX "crop_practices_farm_id_key_index" ON "crop_practices" USING btree ("farm_id","key");--> statement-breakpoint
+CREATE UNIQUE INDEX "field_operations_farm_id_key_index" ON "field_operations" USING btree ("farm_id","key");--> statement-breakpoint
+CREATE UNIQUE INDEX "fields_farm_id_key_index" ON "fields" USING btree ("farm_id","key");--> statement-breakpoint
 CREATE INDEX "invitations_farm_id_index" ON "invitations" USING btree ("farm_id");--> statement-breakpoint
 CREATE INDEX "invitations_email_index" ON "invitations" USING btree ("email");--> statement-breakpoint
 CREATE INDEX "memberships_user_id_index" ON "memberships" USING btree ("user_id");--> statement-breakpoint
 CREATE UNIQUE INDEX "plan_versions_plan_id_version_index" ON "plan_versions" USING btree ("plan_id","version");--> statement-breakpoint
 CREATE INDEX "plans_farm_id_index" ON "plans" USING btree ("farm_id");--> statement-breakpoint
 CREATE UNIQUE INDEX "plans_one_reference_per_farm" ON "plans" USING btree ("farm_id") WHERE "plans"."is_reference";--> statement-breakpoint
-CREATE UNIQUE INDEX "price_sets_farm_id_year_name_index" ON "price_sets" USING btree ("farm_id","year","name");--> statement-breakpoint
+CREATE INDEX "practice_operations_operation_id_index" ON "practice_operations" USING btree ("operation_id");--> statement-breakpoint
+CREATE UNIQUE INDEX "price_sets_farm_id_year_index" ON "price_sets" USING btree ("farm_id","year");--> statement-breakpoint
 CREATE INDEX "reviews_plan_version_id_index" ON "reviews" USING btree ("plan_version_id");--> statement-breakpoint
-CREATE UNIQUE INDEX "rotations_farm_id_name_index" ON "rotations" USING btree ("farm_id","name");
+CREATE INDEX "rotation_steps_practice_id_index" ON "rotation_steps" USING btree ("practice_id");--> statement-breakpoint
+CREATE UNIQUE INDEX "rotations_farm_id_key_index" ON "rotations" USING btree ("farm_id","key");

@@ -1,8 +1,11 @@
 // Seeds the invented demo: Maple Coulee Farm, its people, a lender and a site administrator.
 // Demo-only: it refuses to run unless FURROWCAST_DEMO=1 (set by `npm start` and `npm test` in .env).
+import { readFileSync, readdirSync } from 'node:fs';
 import { eq } from 'drizzle-orm';
+import { parsePlanDocument, type PlanDocument } from '../../src/lib/schemas/plan-file';
 import { hashPassword } from '../../src/lib/server/auth/password';
 import { createDb } from '../../src/lib/server/db/client';
+import { importPlanDocument } from '../../src/lib/server/db/plan-documents';
 import { farms, memberships, users } from '../../src/lib/server/db/schema';
 
 export const DEMO_PASSWORD = 'furrowcast-demo';
@@ -20,7 +23,7 @@ const demoFarms = [
 	{
 		name: 'Maple Coulee Farm',
 		region: 'Upper Midwest',
-		labourHoursByMonth: [180, 180, 220, 300, 340, 280, 260, 260, 300, 340, 260, 180],
+		labourHoursAvailableByMonth: [180, 180, 220, 300, 340, 280, 260, 260, 300, 340, 260, 180],
 		members: [
 			['owner', 'owner'],
 			['partner', 'editor'],
@@ -30,13 +33,28 @@ const demoFarms = [
 	{
 		name: 'Birch Hollow Farm',
 		region: 'Upper Midwest',
-		labourHoursByMonth: [160, 160, 180, 240, 280, 240, 220, 220, 240, 280, 220, 160],
+		labourHoursAvailableByMonth: [160, 160, 180, 240, 280, 240, 220, 220, 240, 280, 220, 160],
 		members: [
 			['neighbour', 'owner'],
 			['lender', 'reviewer']
 		]
 	}
 ] as const;
+
+/** The demo farm's plan files; `reference.json` is its reference plan. */
+function demoPlans(): { file: string; doc: PlanDocument }[] {
+	return readdirSync('scenarios')
+		.filter((file) => file.endsWith('.json'))
+		.sort(
+			(a, b) =>
+				Number(b === 'reference.json') - Number(a === 'reference.json') || a.localeCompare(b)
+		)
+		.map((file) => {
+			const parsed = parsePlanDocument(JSON.parse(readFileSync(`scenarios/${file}`, 'utf8')));
+			if (!parsed.ok) throw new Error(`scenarios/${file}: ${JSON.stringify(parsed.issues)}`);
+			return { file, doc: parsed.plan };
+		});
+}
 
 if (process.env.FURROWCAST_DEMO !== '1') {
 	console.error(
@@ -54,6 +72,7 @@ try {
 		console.log('demo data already present');
 	} else {
 		const passwordHash = await hashPassword(DEMO_PASSWORD);
+		const plans = demoPlans();
 		await db.transaction(async (tx) => {
 			const ids: Record<string, string> = {};
 			for (const [key, person] of Object.entries(people)) {
@@ -66,11 +85,26 @@ try {
 			for (const { members, ...farm } of demoFarms) {
 				const [row] = await tx
 					.insert(farms)
-					.values({ ...farm, labourHoursByMonth: [...farm.labourHoursByMonth] })
+					.values(
+						// The demo farm's settings come from its reference plan file when there is one.
+						plans.find((p) => p.doc.farm.name === farm.name)?.doc.farm ?? {
+							...farm,
+							labourHoursAvailableByMonth: [...farm.labourHoursAvailableByMonth]
+						}
+					)
 					.returning({ id: farms.id });
 				await tx
 					.insert(memberships)
 					.values(members.map(([person, role]) => ({ farmId: row.id, userId: ids[person], role })));
+				if (farm.name !== 'Maple Coulee Farm') continue;
+				for (const { file, doc } of plans) {
+					await importPlanDocument(tx, {
+						farmId: row.id,
+						userId: ids.owner,
+						doc,
+						isReference: file === 'reference.json'
+					});
+				}
 			}
 		});
 		console.log('demo data seeded');

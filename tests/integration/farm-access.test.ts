@@ -11,8 +11,8 @@ const validSettings = {
 	name: 'Maple Coulee Farm',
 	region: 'Upper Midwest',
 	unitSystem: 'us',
-	labourHoursByMonth: months,
-	discountRatePct: 6
+	labourHoursAvailableByMonth: months,
+	interestRatePercent: 6
 };
 
 let owner: Client;
@@ -79,7 +79,7 @@ describe('a reviewer (the lender)', () => {
 			name: 'Renamed by reviewer',
 			unitSystem: 'us',
 			labourHours: months.map(String),
-			discountRatePct: '6'
+			interestRatePercent: '6'
 		});
 		expect(action.status).toBe(403);
 		const api = await lender.json(`/api/v1/farms/${mapleId}`, 'PUT', {
@@ -98,14 +98,14 @@ describe('an editor (the family partner)', () => {
 			region: 'Upper Midwest, east coulee',
 			unitSystem: 'us',
 			labourHours: months.map(String),
-			discountRatePct: '6.5'
+			interestRatePercent: '6.5'
 		});
 		expect(saved.status).toBe(303);
 		expect((await farmRow(mapleId))?.region).toBe('Upper Midwest, east coulee');
 		const api = await partner.json(`/api/v1/farms/${mapleId}`, 'PUT', validSettings);
 		expect(api.status).toBe(200);
 		const row = await farmRow(mapleId);
-		expect([row?.region, row?.discountRatePct]).toEqual(['Upper Midwest', '6.00']);
+		expect([row?.region, row?.interestRatePercent]).toEqual(['Upper Midwest', 6]);
 	});
 
 	it('gets field-named messages for bad settings, and nothing is saved', async () => {
@@ -114,7 +114,7 @@ describe('an editor (the family partner)', () => {
 			name: '',
 			unitSystem: 'furlongs',
 			labourHours: ['200', '-5', ...months.slice(2).map(String)],
-			discountRatePct: 'lots'
+			interestRatePercent: 'lots'
 		});
 		expect(form.status).toBe(400);
 		const html = await form.text();
@@ -123,11 +123,14 @@ describe('an editor (the family partner)', () => {
 		expect(html).toContain('Enter the rate as a number.');
 		const api = await partner.json(`/api/v1/farms/${mapleId}`, 'PUT', {
 			...validSettings,
-			labourHoursByMonth: [1, 2, 3]
+			labourHoursAvailableByMonth: [1, 2, 3]
 		});
 		expect(api.status).toBe(422);
 		expect((await api.json()).issues).toEqual([
-			{ path: 'labourHoursByMonth', message: 'Give labour hours for all 12 months.' }
+			{
+				path: 'labourHoursAvailableByMonth',
+				message: 'Give labour hours for all 12 months, January to December.'
+			}
 		]);
 		expect(await farmRow(mapleId)).toEqual(before);
 	});
@@ -153,8 +156,8 @@ describe('POST /api/v1/farms', () => {
 		expect(invalid.status).toBe(422);
 		const { issues } = await invalid.json();
 		expect(issues.map((i: { path: string }) => i.path).sort()).toEqual([
-			'discountRatePct',
-			'labourHoursByMonth',
+			'interestRatePercent',
+			'labourHoursAvailableByMonth',
 			'name'
 		]);
 		const notJson = await lender.json('/api/v1/farms', 'POST', '{"name": ');

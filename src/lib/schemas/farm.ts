@@ -1,39 +1,49 @@
 import { z } from 'zod';
 
-const MONTHS = 12;
+const number = (label: string) => z.number({ error: `Enter ${label} as a number.` });
 
-export const farmSettingsSchema = z.object({
+/** A farm's own settings: the same shape in the farm form, the API and the plan file's `farm`. */
+export const farmSchema = z.strictObject({
 	name: z
 		.string({ error: 'Enter the farm name.' })
 		.trim()
 		.min(1, { error: 'Enter the farm name.' })
 		.max(120, { error: 'Use at most 120 characters.' }),
 	region: z.string().trim().max(120, { error: 'Use at most 120 characters.' }).default(''),
-	unitSystem: z.enum(['us', 'metric'], { error: 'Choose US customary or metric units.' }),
-	labourHoursByMonth: z
+	unitSystem: z
+		.enum(['us', 'metric'], { error: 'Choose US customary or metric units.' })
+		.default('us'),
+	labourHoursAvailableByMonth: z
 		.array(
-			z.coerce
-				.number({ error: 'Enter hours as a number.' })
+			number('hours')
 				.min(0, { error: 'Hours cannot be negative.' })
 				.max(744, { error: 'A month has at most 744 hours.' }),
-			{ error: 'Give labour hours for each month.' }
+			{ error: 'Give labour hours for each month, January to December.' }
 		)
-		.length(MONTHS, { error: 'Give labour hours for all 12 months.' }),
-	discountRatePct: z.coerce
-		.number({ error: 'Enter the rate as a number.' })
+		.length(12, { error: 'Give labour hours for all 12 months, January to December.' }),
+	interestRatePercent: number('the rate')
 		.min(0, { error: 'The rate cannot be negative.' })
 		.max(50, { error: 'Enter a rate of at most 50 %.' })
 });
 
-export type FarmSettings = z.output<typeof farmSettingsSchema>;
+export type FarmSettings = z.output<typeof farmSchema>;
 
-/** Reads the farm form's fields (one `labourHours` input per month) into the schema's shape. */
-export function farmSettingsFromForm(form: FormData): unknown {
+/** A form's text as a number for the schema; text that is not a number stays text, so the schema names it. */
+function formNumber(value: FormDataEntryValue | null): unknown {
+	if (value === null) return undefined;
+	const text = String(value).trim();
+	if (text === '') return undefined;
+	const parsed = Number(text.replace(/,/g, ''));
+	return Number.isFinite(parsed) ? parsed : text;
+}
+
+/** Reads the farm form (one `labourHours` input per month) into the schema's shape. */
+export function farmSettingsFromForm(form: FormData): Record<string, unknown> {
 	return {
 		name: form.get('name') ?? undefined,
 		region: form.get('region') ?? undefined,
 		unitSystem: form.get('unitSystem') ?? undefined,
-		labourHoursByMonth: form.getAll('labourHours').map((v) => (v === '' ? undefined : v)),
-		discountRatePct: form.get('discountRatePct') || undefined
+		labourHoursAvailableByMonth: form.getAll('labourHours').map(formNumber),
+		interestRatePercent: formNumber(form.get('interestRatePercent'))
 	};
 }

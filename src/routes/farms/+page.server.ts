@@ -1,5 +1,5 @@
 import { fail, redirect } from '@sveltejs/kit';
-import { farmSettingsFromForm, farmSettingsSchema } from '$lib/schemas/farm';
+import { farmSettingsFromForm, farmSchema } from '$lib/schemas/farm';
 import { toFieldErrors } from '$lib/schemas/issues';
 import { requireUser } from '$lib/server/auth/access';
 import { createFarm, listFarmsForUser } from '$lib/server/db/farms';
@@ -14,7 +14,7 @@ export const actions = {
 	create: async (event) => {
 		const user = requireUser(event);
 		const input = farmSettingsFromForm(await event.request.formData());
-		const parsed = farmSettingsSchema.safeParse(input);
+		const parsed = farmSchema.safeParse(input);
 		if (!parsed.success) return fail(400, { values: input, errors: toFieldErrors(parsed.error) });
 		const farm = await createFarm(user.id, parsed.data);
 		redirect(303, `/farms/${farm.id}`);

@@ -35,7 +35,7 @@ export async function createFarm(userId: string, settings: FarmSettings) {
 	return db.transaction(async (tx) => {
 		const [farm] = await tx
 			.insert(farms)
-			.values({ ...settings, discountRatePct: settings.discountRatePct.toFixed(2) })
+			.values(settings)
 			.returning({ id: farms.id, name: farms.name });
 		await tx.insert(memberships).values({ farmId: farm.id, userId, role: 'owner' });
 		await tx.insert(auditLog).values({ farmId: farm.id, userId, action: 'farm.created' });
@@ -45,10 +45,7 @@ export async function createFarm(userId: string, settings: FarmSettings) {
 
 export async function updateFarm(farmId: string, userId: string, settings: FarmSettings) {
 	await db.transaction(async (tx) => {
-		await tx
-			.update(farms)
-			.set({ ...settings, discountRatePct: settings.discountRatePct.toFixed(2) })
-			.where(eq(farms.id, farmId));
+		await tx.update(farms).set(settings).where(eq(farms.id, farmId));
 		await tx.insert(auditLog).values({ farmId, userId, action: 'farm.updated' });
 	});
 }

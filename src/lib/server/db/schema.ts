@@ -98,8 +98,9 @@ export const farms = pgTable('farms', {
 	region: text().notNull().default(''),
 	unitSystem: unitSystem().notNull().default('us'),
 	/** Family labour available, hours per month, January to December. */
-	labourHoursByMonth: jsonb().$type<number[]>().notNull(),
-	discountRatePct: numeric({ precision: 5, scale: 2 }).notNull().default('6.00'),
+	labourHoursAvailableByMonth: jsonb().$type<number[]>().notNull(),
+	/** Annual rate charged on operating money for the months it is carried. */
+	interestRatePercent: numeric({ mode: 'number', precision: 5, scale: 2 }).notNull().default(6.0),
 	...timestamps
 });
 
@@ -137,7 +138,7 @@ export const invitations = pgTable(
 	(t) => [index().on(t.farmId), index().on(t.email)]
 );
 
-// ---- What the farm has ----
+// ---- What the farm has. Each part keeps the plan file's id as `key`, so files round-trip. ----
 
 export const fields = pgTable(
 	'fields',
@@ -146,40 +147,46 @@ export const fields = pgTable(
 		farmId: uuid()
 			.notNull()
 			.references(() => farms.id, { onDelete: 'cascade' }),
+		key: text().notNull(),
 		name: text().notNull(),
-		acres: numeric({ precision: 10, scale: 2 }).notNull(),
+		acres: numeric({ mode: 'number', precision: 10, scale: 2 }).notNull(),
 		/** 1.00 = farm average. */
-		productivityIndex: numeric({ precision: 4, scale: 2 }).notNull().default('1.00'),
+		productivityIndex: numeric({ mode: 'number', precision: 4, scale: 2 }).notNull().default(1.0),
 		priorCrop: text().notNull().default(''),
+		priorCropNitrogenCreditLbPerAcre: numeric({ mode: 'number', precision: 7, scale: 2 })
+			.notNull()
+			.default(0),
 		notes: text().notNull().default(''),
 		...timestamps
 	},
-	(t) => [uniqueIndex().on(t.farmId, t.name)]
+	(t) => [uniqueIndex().on(t.farmId, t.key)]
 );
 
-export const herds = pgTable(
-	'herds',
-	{
-		id: uuid().primaryKey().defaultRandom(),
-		farmId: uuid()
-			.notNull()
-			.references(() => farms.id, { onDelete: 'cascade' }),
-		name: text().notNull(),
-		head: integer().notNull(),
-		averageWeightLb: numeric({ precision: 8, scale: 1 }).notNull(),
-		intakeLbDmPerAuDay: numeric({ precision: 6, scale: 2 }).notNull(),
-		feedingSeasonDays: integer().notNull(),
-		baleWeightLb: numeric({ precision: 8, scale: 1 }).notNull(),
-		baleDryMatterPct: numeric({ precision: 5, scale: 2 }).notNull(),
-		feedingWastePct: numeric({ precision: 5, scale: 2 }).notNull(),
-		hayPriceUsdPerBale: numeric({ precision: 10, scale: 2 }).notNull(),
-		choreHoursPerDayFeedingHay: numeric({ precision: 5, scale: 2 }).notNull(),
-		choreHoursPerDayGrazing: numeric({ precision: 5, scale: 2 }).notNull(),
-		...timestamps
-	},
-	(t) => [index().on(t.farmId)]
-);
+/** The farm's cow herd (one per farm). */
+export const herds = pgTable('herds', {
+	id: uuid().primaryKey().defaultRandom(),
+	farmId: uuid()
+		.notNull()
+		.unique()
+		.references(() => farms.id, { onDelete: 'cascade' }),
+	head: integer().notNull(),
+	averageWeightLb: numeric({ mode: 'number', precision: 8, scale: 1 }).notNull(),
+	intakeLbDmPerAuDay: numeric({ mode: 'number', precision: 6, scale: 2 }).notNull(),
+	feedingSeasonStartMonth: smallint().notNull(),
+	feedingSeasonDays: smallint().notNull(),
+	/** Days grazing can last before snow or mud stops it; null: the whole feeding season. */
+	maxGrazingDays: smallint(),
+	baleWeightLb: numeric({ mode: 'number', precision: 8, scale: 1 }).notNull(),
+	baleDryMatterPercent: numeric({ mode: 'number', precision: 5, scale: 2 }).notNull(),
+	feedingWastePercent: numeric({ mode: 'number', precision: 5, scale: 2 }).notNull(),
+	choreHoursPerDayFeedingHay: numeric({ mode: 'number', precision: 5, scale: 2 }).notNull(),
+	choreHoursPerDayGrazing: numeric({ mode: 'number', precision: 5, scale: 2 }).notNull(),
+	manureNitrogenLbPerAuDay: numeric({ mode: 'number', precision: 6, scale: 3 }).notNull(),
+	manureNitrogenAvailablePercent: numeric({ mode: 'number', precision: 5, scale: 2 }).notNull(),
+	...timestamps
+});
 
+/** One year's prices; crop, seed and custom-hire prices are its items. */
 export const priceSets = pgTable(
 	'price_sets',
 	{
@@ -188,26 +195,40 @@ export const priceSets = pgTable(
 			.notNull()
 			.references(() => farms.id, { onDelete: 'cascade' }),
 		year: smallint().notNull(),
-		name: text().notNull(),
+		nitrogenUsdPerLb: numeric({ mode: 'number', precision: 10, scale: 4 }).notNull(),
+		dieselUsdPerGallon: numeric({ mode: 'number', precision: 10, scale: 4 }).notNull(),
+		labourUsdPerHour: numeric({ mode: 'number', precision: 10, scale: 2 }).notNull(),
+		hayUsdPerBale: numeric({ mode: 'number', precision: 10, scale: 2 }).notNull(),
 		...timestamps
 	},
-	(t) => [uniqueIndex().on(t.farmId, t.year, t.name)]
+	(t) => [uniqueIndex().on(t.farmId, t.year)]
 );
 
-/** One price in a set: grain $/bu, N $/lb, diesel $/gal, labour $/h, seed, cover mix, custom rates. */
+export const priceItemKind = pgEnum('price_item_kind', [
+	'crop',
+	'seed-per-thousand-seeds',
+	'seed-per-lb',
+	'custom-rate-per-acre'
+]);
+
 export const priceSetItems = pgTable(
 	'price_set_items',
 	{
 		priceSetId: uuid()
 			.notNull()
 			.references(() => priceSets.id, { onDelete: 'cascade' }),
-		item: text().notNull(),
-		unit: text().notNull(),
-		priceUsd: numeric({ precision: 12, scale: 4 }).notNull()
+		kind: priceItemKind().notNull(),
+		/** The crop, seed or operation the price is for. */
+		key: text().notNull(),
+		priceUsd: numeric({ mode: 'number', precision: 12, scale: 4 }).notNull()
 	},
-	(t) => [primaryKey({ columns: [t.priceSetId, t.item] })]
+	(t) => [primaryKey({ columns: [t.priceSetId, t.kind, t.key] })]
 );
 
+export const operationBy = pgEnum('operation_by', ['own', 'custom']);
+export const fuelBasis = pgEnum('fuel_basis', ['per-acre', 'pto-power']);
+
+/** A field operation: own machinery (capacity, fuel, labour, repairs) or hired at a custom rate. */
 export const fieldOperations = pgTable(
 	'field_operations',
 	{
@@ -215,19 +236,23 @@ export const fieldOperations = pgTable(
 		farmId: uuid()
 			.notNull()
 			.references(() => farms.id, { onDelete: 'cascade' }),
+		key: text().notNull(),
 		name: text().notNull(),
-		kind: text().notNull(),
-		speedMph: numeric({ precision: 5, scale: 2 }).notNull(),
-		widthFt: numeric({ precision: 6, scale: 2 }).notNull(),
-		fieldEfficiencyPct: numeric({ precision: 5, scale: 2 }).notNull(),
-		dieselGalPerAcre: numeric({ precision: 6, scale: 3 }).notNull(),
-		labourFactor: numeric({ precision: 4, scale: 2 }).notNull(),
+		by: operationBy().notNull(),
 		/** 1 = January. */
 		month: smallint().notNull(),
-		repairUsdPerAcre: numeric({ precision: 8, scale: 2 }).notNull(),
+		speedMph: numeric({ mode: 'number', precision: 5, scale: 2 }),
+		widthFt: numeric({ mode: 'number', precision: 6, scale: 2 }),
+		fieldEfficiencyPercent: numeric({ mode: 'number', precision: 5, scale: 2 }),
+		fuelBasis: fuelBasis(),
+		dieselGallonsPerAcre: numeric({ mode: 'number', precision: 6, scale: 3 }),
+		tractorMaxPtoHp: numeric({ mode: 'number', precision: 6, scale: 1 }),
+		dieselGallonsPerHpHour: numeric({ mode: 'number', precision: 6, scale: 4 }),
+		labourFactor: numeric({ mode: 'number', precision: 4, scale: 2 }),
+		repairsUsdPerAcre: numeric({ mode: 'number', precision: 8, scale: 2 }),
 		...timestamps
 	},
-	(t) => [uniqueIndex().on(t.farmId, t.name)]
+	(t) => [uniqueIndex().on(t.farmId, t.key)]
 );
 
 /** One year of one crop: what it costs, what it yields, what it leaves and what it offers for grazing. */
@@ -238,18 +263,18 @@ export const cropPractices = pgTable(
 		farmId: uuid()
 			.notNull()
 			.references(() => farms.id, { onDelete: 'cascade' }),
+		key: text().notNull(),
 		name: text().notNull(),
 		crop: text().notNull(),
-		yieldGoal: numeric({ precision: 10, scale: 2 }).notNull(),
-		rowSpacingIn: numeric({ precision: 5, scale: 1 }),
-		seedUsdPerAcre: numeric({ precision: 8, scale: 2 }).notNull(),
-		nitrogenAppliedLbPerAcre: numeric({ precision: 7, scale: 2 }).notNull(),
-		chemicalsUsdPerAcre: numeric({ precision: 8, scale: 2 }).notNull(),
-		/** The rest of the practice (N response curve, cover mix, credits, grazing) as the plan file states it. */
+		/** bu/ac for grains, tons/ac for forages. */
+		yieldGoalPerAcre: numeric({ mode: 'number', precision: 10, scale: 2 }).notNull(),
+		otherFertiliserUsdPerAcre: numeric({ mode: 'number', precision: 8, scale: 2 }).notNull(),
+		chemicalsUsdPerAcre: numeric({ mode: 'number', precision: 8, scale: 2 }).notNull(),
+		/** The rest as the plan file states it: seed, N rate and response, cover mix, credits, grazing. */
 		detail: jsonb().$type<Record<string, unknown>>().notNull(),
 		...timestamps
 	},
-	(t) => [uniqueIndex().on(t.farmId, t.name)]
+	(t) => [uniqueIndex().on(t.farmId, t.key)]
 );
 
 export const practiceOperations = pgTable(
@@ -258,12 +283,15 @@ export const practiceOperations = pgTable(
 		practiceId: uuid()
 			.notNull()
 			.references(() => cropPractices.id, { onDelete: 'cascade' }),
+		sequence: smallint().notNull(),
 		operationId: uuid()
 			.notNull()
 			.references(() => fieldOperations.id, { onDelete: 'restrict' }),
-		sequence: smallint().notNull()
+		/** Overrides the operation's usual month for this practice. */
+		month: smallint(),
+		passes: smallint().notNull().default(1)
 	},
-	(t) => [primaryKey({ columns: [t.practiceId, t.sequence] })]
+	(t) => [primaryKey({ columns: [t.practiceId, t.sequence] }), index().on(t.operationId)]
 );
 
 export const rotations = pgTable(
@@ -273,10 +301,11 @@ export const rotations = pgTable(
 		farmId: uuid()
 			.notNull()
 			.references(() => farms.id, { onDelete: 'cascade' }),
+		key: text().notNull(),
 		name: text().notNull(),
 		...timestamps
 	},
-	(t) => [uniqueIndex().on(t.farmId, t.name)]
+	(t) => [uniqueIndex().on(t.farmId, t.key)]
 );
 
 export const rotationSteps = pgTable(
@@ -285,12 +314,13 @@ export const rotationSteps = pgTable(
 		rotationId: uuid()
 			.notNull()
 			.references(() => rotations.id, { onDelete: 'cascade' }),
+		/** 1 = the rotation's first year. */
 		position: smallint().notNull(),
 		practiceId: uuid()
 			.notNull()
 			.references(() => cropPractices.id, { onDelete: 'restrict' })
 	},
-	(t) => [primaryKey({ columns: [t.rotationId, t.position] })]
+	(t) => [primaryKey({ columns: [t.rotationId, t.position] }), index().on(t.practiceId)]
 );
 
 // ---- Plans, their versions and reviews ----
@@ -327,7 +357,9 @@ export const planVersions = pgTable(
 		version: integer().notNull(),
 		startYear: smallint().notNull(),
 		years: smallint().notNull(),
-		assumptions: jsonb().$type<Record<string, unknown>>().notNull(),
+		/** Plain statements shown with the results. */
+		assumptions: jsonb().$type<string[]>().notNull().default([]),
+		notes: text().notNull().default(''),
 		savedById: uuid().references(() => users.id, { onDelete: 'set null' }),
 		createdAt: timestamp({ withTimezone: true }).notNull().defaultNow()
 	},
@@ -346,7 +378,7 @@ export const planFieldAssignments = pgTable(
 		rotationId: uuid()
 			.notNull()
 			.references(() => rotations.id, { onDelete: 'restrict' }),
-		/** Which step of the rotation the field is in during the first plan year (0-based). */
+		/** 1 = the rotation's first practice in the plan's first year. */
 		startingPhase: smallint().notNull()
 	},
 	(t) => [primaryKey({ columns: [t.planVersionId, t.fieldId] })]

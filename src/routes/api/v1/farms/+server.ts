@@ -1,5 +1,5 @@
 import { json } from '@sveltejs/kit';
-import { farmSettingsSchema } from '$lib/schemas/farm';
+import { farmSchema } from '$lib/schemas/farm';
 import { invalidInput, readJson } from '$lib/server/api';
 import { requireUser } from '$lib/server/auth/access';
 import { createFarm, listFarmsForUser } from '$lib/server/db/farms';
@@ -17,7 +17,7 @@ export const POST: RequestHandler = async (event) => {
 	const user = requireUser(event);
 	const body = await readJson(event.request);
 	if (!body.ok) return body.response;
-	const parsed = farmSettingsSchema.safeParse(body.body);
+	const parsed = farmSchema.safeParse(body.body);
 	if (!parsed.success) return invalidInput(parsed.error);
 	const farm = await createFarm(user.id, parsed.data);
 	return json({ farm: { id: farm.id, name: farm.name, role: 'owner' } }, { status: 201 });

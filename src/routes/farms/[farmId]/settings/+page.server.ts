@@ -1,5 +1,5 @@
 import { fail, redirect } from '@sveltejs/kit';
-import { farmSettingsFromForm, farmSettingsSchema } from '$lib/schemas/farm';
+import { farmSettingsFromForm, farmSchema } from '$lib/schemas/farm';
 import { toFieldErrors } from '$lib/schemas/issues';
 import { requireFarmAccess } from '$lib/server/auth/access';
 import { updateFarm } from '$lib/server/db/farms';
@@ -13,8 +13,8 @@ export const load = (async (event) => {
 			name: farm.name,
 			region: farm.region,
 			unitSystem: farm.unitSystem,
-			labourHoursByMonth: farm.labourHoursByMonth,
-			discountRatePct: Number(farm.discountRatePct)
+			labourHoursAvailableByMonth: farm.labourHoursAvailableByMonth,
+			interestRatePercent: farm.interestRatePercent
 		}
 	};
 }) satisfies PageServerLoad;
@@ -23,7 +23,7 @@ export const actions = {
 	default: async (event) => {
 		const { user, farm } = await requireFarmAccess(event, event.params.farmId, 'farm:edit');
 		const input = farmSettingsFromForm(await event.request.formData());
-		const parsed = farmSettingsSchema.safeParse(input);
+		const parsed = farmSchema.safeParse(input);
 		if (!parsed.success) return fail(400, { values: input, errors: toFieldErrors(parsed.error) });
 		await updateFarm(farm.id, user.id, parsed.data);
 		redirect(303, `/farms/${farm.id}`);

@@ -1,5 +1,5 @@
 import { json } from '@sveltejs/kit';
-import { farmSettingsSchema } from '$lib/schemas/farm';
+import { farmSchema } from '$lib/schemas/farm';
 import { invalidInput, readJson } from '$lib/server/api';
 import { requireFarmAccess } from '$lib/server/auth/access';
 import { updateFarm } from '$lib/server/db/farms';
@@ -15,11 +15,11 @@ export const PUT: RequestHandler = async (event) => {
 	const { user, farm, role } = await requireFarmAccess(event, event.params.farmId, 'farm:edit');
 	const body = await readJson(event.request);
 	if (!body.ok) return body.response;
-	const parsed = farmSettingsSchema.safeParse(body.body);
+	const parsed = farmSchema.safeParse(body.body);
 	if (!parsed.success) return invalidInput(parsed.error);
 	await updateFarm(farm.id, user.id, parsed.data);
 	return json({
-		farm: farmJson({ ...farm, ...parsed.data, discountRatePct: parsed.data.discountRatePct }),
+		farm: farmJson({ ...farm, ...parsed.data }),
 		role
 	});
 };
@@ -29,15 +29,15 @@ function farmJson(farm: {
 	name: string;
 	region: string;
 	unitSystem: 'us' | 'metric';
-	labourHoursByMonth: number[];
-	discountRatePct: string | number;
+	labourHoursAvailableByMonth: number[];
+	interestRatePercent: number;
 }) {
 	return {
 		id: farm.id,
 		name: farm.name,
 		region: farm.region,
 		unitSystem: farm.unitSystem,
-		labourHoursByMonth: farm.labourHoursByMonth,
-		discountRatePct: Number(farm.discountRatePct)
+		labourHoursAvailableByMonth: farm.labourHoursAvailableByMonth,
+		interestRatePercent: farm.interestRatePercent
 	};
 }

@@ -1,6 +1,7 @@
 import { defineConfig } from 'drizzle-kit';
 
-if (!process.env.DATABASE_URL) throw new Error('DATABASE_URL is not set: run `npm start` once to write .env');
+if (!process.env.DATABASE_URL)
+	throw new Error('DATABASE_URL is not set: run `npm start` once to write .env');
 
 export default defineConfig({
 	schema: './src/lib/server/db/schema.ts',

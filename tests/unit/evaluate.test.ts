@@ -233,6 +233,7 @@ describe('a field-year of the small plan', () => {
 			d.nitrogenUsd +
 			d.otherFertiliserUsd +
 			d.chemicalsUsd +
+			d.otherDirectUsd +
 			d.coverSeedUsd +
 			d.customHireUsd +
 			eastCorn.operationCosts.fuelUsd +

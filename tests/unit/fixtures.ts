@@ -10,7 +10,8 @@ export function smallPlanInput(): PlanDocumentInput {
 			region: 'Test Region',
 			unitSystem: 'us',
 			labourHoursAvailableByMonth: [100, 100, 150, 250, 300, 250, 200, 200, 250, 300, 200, 100],
-			interestRatePercent: 8
+			interestRatePercent: 8,
+			fixedCostsUsdPerYear: 50000
 		},
 		fields: [
 			{ id: 'east', name: 'East', acres: 80, productivityIndex: 1.05 },
@@ -65,6 +66,7 @@ export function smallPlanInput(): PlanDocumentInput {
 				},
 				otherFertiliserUsdPerAcre: 40,
 				chemicalsUsdPerAcre: 55,
+				otherDirectUsdPerAcre: 30,
 				operations: [
 					{ operationId: 'plant' },
 					{ operationId: 'spray', passes: 2 },

@@ -130,7 +130,10 @@ describe('invariants', () => {
 						9
 					);
 					expect(farmYear.costsUsd).toBeCloseTo(
-						farmYear.fieldCostsUsd + farmYear.hayCostUsd + farmYear.choreLabourUsd,
+						farmYear.fieldCostsUsd +
+							farmYear.hayCostUsd +
+							farmYear.choreLabourUsd +
+							farmYear.fixedCostsUsd,
 						6
 					);
 					expect(farmYear.netReturnUsd).toBeCloseTo(farmYear.revenueUsd - farmYear.costsUsd, 6);

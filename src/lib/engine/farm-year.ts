@@ -9,6 +9,7 @@ export interface FarmYearResult {
 	fieldCostsUsd: number;
 	hayCostUsd: number;
 	choreLabourUsd: number;
+	fixedCostsUsd: number;
 	costsUsd: number;
 	netReturnUsd: number;
 	netReturnUsdPerAcre: number;
@@ -40,8 +41,9 @@ export function evaluateFarmYear(
 	fieldYears: FieldYearResult[],
 	herd: Herd | null,
 	prices: PriceSet,
-	labourHoursAvailableByMonth: number[]
+	farm: { labourHoursAvailableByMonth: number[]; fixedCostsUsdPerYear: number }
 ): FarmYearResult {
+	const { labourHoursAvailableByMonth, fixedCostsUsdPerYear: fixedCostsUsd } = farm;
 	let acres = 0;
 	let revenueUsd = 0;
 	let fieldCostsUsd = 0;
@@ -71,7 +73,7 @@ export function evaluateFarmYear(
 	const hayBales = feeding?.hayBales ?? 0;
 	const hayCostUsd = hayBales * prices.hayUsdPerBale;
 	const choreLabourUsd = choreHours * prices.labourUsdPerHour;
-	const costsUsd = fieldCostsUsd + hayCostUsd + choreLabourUsd;
+	const costsUsd = fieldCostsUsd + hayCostUsd + choreLabourUsd + fixedCostsUsd;
 	const netReturnUsd = revenueUsd - costsUsd;
 	const labourHours = fieldLabourHours + choreHours;
 
@@ -82,6 +84,7 @@ export function evaluateFarmYear(
 		fieldCostsUsd,
 		hayCostUsd,
 		choreLabourUsd,
+		fixedCostsUsd,
 		costsUsd,
 		netReturnUsd,
 		netReturnUsdPerAcre: netReturnUsd / acres,

@@ -72,6 +72,7 @@ export interface FieldYearResult {
 		nitrogenUsd: number;
 		otherFertiliserUsd: number;
 		chemicalsUsd: number;
+		otherDirectUsd: number;
 		coverSeedUsd: number;
 		customHireUsd: number;
 		operatingInterestUsd: number;
@@ -217,6 +218,7 @@ export function evaluateFieldYear(input: FieldYearInput): FieldYearResult {
 	const nitrogenUsd = nitrogen.purchasedLb * prices.nitrogenUsdPerLb;
 	const otherFertiliserUsd = practice.otherFertiliserUsdPerAcre * acres;
 	const chemicalsUsd = practice.chemicalsUsdPerAcre * acres;
+	const otherDirectUsd = practice.otherDirectUsdPerAcre * acres;
 	const cover = practice.coverMix;
 	const coverSeedUsd = cover
 		? cover.species.reduce(
@@ -224,19 +226,20 @@ export function evaluateFieldYear(input: FieldYearInput): FieldYearResult {
 				0
 			) * acres
 		: 0;
-	// Interest on the cash spent before harvest; the family's own labour is not borrowed money.
-	const cashCostsUsd =
+	const purchasedInputsUsd =
 		seedUsd +
 		nitrogenUsd +
 		otherFertiliserUsd +
 		chemicalsUsd +
+		otherDirectUsd +
 		coverSeedUsd +
-		customHireUsd +
-		fuelUsd +
-		repairsUsd;
+		customHireUsd;
+	// Interest on the cash spent before harvest; the family's own labour is not borrowed money.
 	const operatingInterestUsd =
-		cashCostsUsd * (input.interestRatePercent / 100) * (practice.operatingInterestMonths / 12);
-	const directTotalUsd = cashCostsUsd - fuelUsd - repairsUsd + operatingInterestUsd;
+		(purchasedInputsUsd + fuelUsd + repairsUsd) *
+		(input.interestRatePercent / 100) *
+		(practice.operatingInterestMonths / 12);
+	const directTotalUsd = purchasedInputsUsd + operatingInterestUsd;
 	const operationTotalUsd = fuelUsd + repairsUsd + labourUsd;
 	const costsUsd = directTotalUsd + operationTotalUsd;
 
@@ -284,6 +287,7 @@ export function evaluateFieldYear(input: FieldYearInput): FieldYearResult {
 			nitrogenUsd,
 			otherFertiliserUsd,
 			chemicalsUsd,
+			otherDirectUsd,
 			coverSeedUsd,
 			customHireUsd,
 			operatingInterestUsd,

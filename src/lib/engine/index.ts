@@ -78,13 +78,7 @@ function evaluateYears(plan: PlanDocument) {
 			credits.set(field.id, creditsForNextYear(practice, result, plan.herd));
 			thisYear.push(result);
 		}
-		const farmYear = evaluateFarmYear(
-			year,
-			thisYear,
-			plan.herd,
-			prices,
-			plan.farm.labourHoursAvailableByMonth
-		);
+		const farmYear = evaluateFarmYear(year, thisYear, plan.herd, prices, plan.farm);
 		fieldYears.push(...thisYear);
 		farmYears.push(farmYear);
 		items.push({ year, items: yearItems(thisYear, farmYear) });

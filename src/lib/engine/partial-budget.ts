@@ -64,6 +64,7 @@ export function yearItems(fieldYears: FieldYearResult[], farmYear: FarmYearResul
 		add(costs, 'Nitrogen fertiliser', d.nitrogenUsd);
 		add(costs, 'Other fertiliser', d.otherFertiliserUsd);
 		add(costs, 'Chemicals', d.chemicalsUsd);
+		add(costs, 'Drying, hauling, insurance and other', d.otherDirectUsd);
 		add(costs, 'Cover crop seed', d.coverSeedUsd);
 		add(costs, 'Custom hire', d.customHireUsd);
 		add(costs, 'Operating interest', d.operatingInterestUsd);
@@ -73,6 +74,7 @@ export function yearItems(fieldYears: FieldYearResult[], farmYear: FarmYearResul
 	}
 	add(costs, 'Purchased hay', farmYear.hayCostUsd);
 	add(costs, 'Chore labour', farmYear.choreLabourUsd);
+	add(costs, 'Fixed costs', farmYear.fixedCostsUsd);
 	return { returns, costs };
 }
 

@@ -42,7 +42,9 @@ export const farmSchema = z.strictObject({
 		.array(nonNegative)
 		.length(12, 'Give 12 monthly values, January to December'),
 	/** Annual rate charged on operating costs for the months they are carried. */
-	interestRatePercent: percentSchema
+	interestRatePercent: percentSchema,
+	/** Land, machinery and building ownership, insurance, overhead: costs the plan does not change. */
+	fixedCostsUsdPerYear: nonNegative.default(0)
 });
 
 export const fieldSchema = z.strictObject({
@@ -169,6 +171,8 @@ export const cropPracticeSchema = z.strictObject({
 	nitrogenCreditToNextCropLbPerAcre: nonNegative.default(0),
 	otherFertiliserUsdPerAcre: nonNegative,
 	chemicalsUsdPerAcre: nonNegative,
+	/** Drying, hauling, crop insurance and other direct costs per acre. */
+	otherDirectUsdPerAcre: nonNegative.default(0),
 	// Common practice, no published source: operating money is carried about six months, planting to harvest.
 	operatingInterestMonths: z.number().min(0).max(24).default(6),
 	operations: z

@@ -8,6 +8,7 @@ ensure_env
 started_pg=0
 pg_is_running || started_pg=1
 cleanup() {
+	set +e # an exit trap keeps going: stopping PostgreSQL matters more than any one step
 	[ "$started_pg" = 1 ] && pg_stop
 	return 0
 }

@@ -67,11 +67,12 @@ pg_bin_dir() {
 	local dir
 	if command -v pg_config >/dev/null && [ -x "$(pg_config --bindir)/initdb" ]; then
 		pg_config --bindir
-		return
+		return 0
 	fi
 	for dir in /usr/lib/postgresql/*/bin; do
-		[ -x "$dir/initdb" ] && { echo "$dir"; return; }
+		[ -x "$dir/initdb" ] && { echo "$dir"; return 0; }
 	done
+	return 0
 }
 
 # The data directory sits in the checkout when the postgres user can reach it, else under /var/tmp.

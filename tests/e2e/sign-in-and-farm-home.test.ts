@@ -40,6 +40,15 @@ describe.each(Object.entries(viewports))('at %s width', (name, viewport) => {
 		);
 		expect(overflow).toBeLessThanOrEqual(0);
 		await screenshot(page, `farm-home-${name}`);
+
+		await page.getByRole('link', { name: 'Fields', exact: true }).click();
+		await page.waitForURL(/\/data#fields$/);
+		await expect(page.getByRole('cell', { name: 'North Flat' }).isVisible()).resolves.toBe(true);
+		const dataOverflow = await page.evaluate(
+			() => document.documentElement.scrollWidth - window.innerWidth
+		);
+		expect(dataOverflow).toBeLessThanOrEqual(0);
+		await screenshot(page, `farm-data-${name}`);
 		await page.close();
 	});
 });

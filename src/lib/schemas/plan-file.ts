@@ -41,21 +41,30 @@ export const farmSchema = z.strictObject({
 	labourHoursAvailableByMonth: z
 		.array(nonNegative)
 		.length(12, 'Give 12 monthly values, January to December'),
-	/** Annual rate charged on operating costs for the months they are carried. */
-	interestRatePercent: percentSchema,
-	/** Land, machinery and building ownership, insurance, overhead: costs the plan does not change. */
-	fixedCostsUsdPerYear: nonNegative.default(0)
+	interestRatePercent: percentSchema.describe(
+		'Annual rate charged on operating costs for the months they are carried.'
+	),
+	fixedCostsUsdPerYear: nonNegative
+		.default(0)
+		.describe(
+			'Land, machinery and building ownership, insurance, overhead: costs the plan does not change.'
+		)
 });
 
 export const fieldSchema = z.strictObject({
 	id: idSchema,
 	name: nameSchema,
 	acres: positive,
-	/** 1.00 = the farm's average field; scales the yield goal. */
-	productivityIndex: z.number().min(0.1).max(3).default(1),
+	productivityIndex: z
+		.number()
+		.min(0.1)
+		.max(3)
+		.default(1)
+		.describe("1.00 = the farm's average field; scales the yield goal."),
 	priorCrop: z.string().default(''),
-	/** N credit the crop grown before the plan's first year leaves for that year. */
-	priorCropNitrogenCreditLbPerAcre: nonNegative.default(0),
+	priorCropNitrogenCreditLbPerAcre: nonNegative
+		.default(0)
+		.describe("N credit the crop grown before the plan's first year leaves for that year."),
 	notes: z.string().default('')
 });
 
@@ -66,8 +75,16 @@ export const herdSchema = z.strictObject({
 	intakeLbDmPerAuDay: positive.default(26),
 	feedingSeasonStartMonth: monthSchema,
 	feedingSeasonDays: z.number().int().min(0).max(366),
-	/** Days the herd can graze before snow or mud stops it; null: the whole feeding season. */
-	maxGrazingDays: z.number().int().min(0).max(366).nullable().default(null),
+	maxGrazingDays: z
+		.number()
+		.int()
+		.min(0)
+		.max(366)
+		.nullable()
+		.default(null)
+		.describe(
+			'Days the herd can graze before snow or mud stops it; null: the whole feeding season.'
+		),
 	baleWeightLb: positive,
 	// UNL and UF/IFAS examples use hay at 88 % dry matter.
 	baleDryMatterPercent: percentSchema.default(88),
@@ -108,8 +125,11 @@ const ownOperationSchema = z.strictObject({
 const customOperationSchema = z.strictObject({
 	id: idSchema,
 	name: nameSchema,
-	/** Hired out: costs the year's custom rate per acre, no own machine hours, labour or diesel. */
-	by: z.literal('custom'),
+	by: z
+		.literal('custom')
+		.describe(
+			"Hired out: costs the year's custom rate per acre, no own machine hours, labour or diesel."
+		),
 	month: monthSchema
 });
 
@@ -124,24 +144,29 @@ const seedingSchema = z.strictObject({
 	lbPerAcre: positive.optional()
 });
 
-const nitrogenResponseSchema = z.strictObject({
-	/** Y = a + bN − cN² bu/ac to available N (applied + credits), flat above N = b/(2c). */
-	interceptBuPerAcre: nonNegative,
-	linearBuPerLbN: positive,
-	quadraticBuPerLbN2: positive
-});
+const nitrogenResponseSchema = z
+	.strictObject({
+		interceptBuPerAcre: nonNegative.describe('a in Y = a + bN − cN², bu/ac'),
+		linearBuPerLbN: positive.describe('b, bu per lb N'),
+		quadraticBuPerLbN2: positive.describe('c, bu per (lb N)²')
+	})
+	.describe(
+		'Yield Y = a + bN − cN² bu/ac to available N (applied + credits), flat above N = b/(2c).'
+	);
 
 const coverMixSchema = z.strictObject({
 	species: z.array(z.strictObject({ seedId: idSchema, lbPerAcre: positive })).min(1),
 	biomassLbDmPerAcre: nonNegative,
-	/** Share of the cover's dry matter that is legume: only legume N is new N for the next crop. */
-	legumeSharePercent: percentSchema,
+	legumeSharePercent: percentSchema.describe(
+		"Share of the cover's dry matter that is legume: only legume N is new N for the next crop."
+	),
 	// SARE Managing Cover Crops Profitably: annual legumes hold 3-3.5 % N at flowering.
 	legumeNitrogenPercent: percentSchema.default(3.5),
 	// SARE Managing Cover Crops Profitably: about half of legume N is available in the first season.
 	nitrogenAvailablePercent: percentSchema.default(50),
-	/** Share of the cover eaten by grazing cattle; 0 when the cover is not grazed. */
-	grazingUtilisationPercent: percentSchema.default(0)
+	grazingUtilisationPercent: percentSchema
+		.default(0)
+		.describe('Share of the cover eaten by grazing cattle; 0 when the cover is not grazed.')
 });
 
 const residueGrazingSchema = z.strictObject({
@@ -155,32 +180,45 @@ export const cropPracticeSchema = z.strictObject({
 	id: idSchema,
 	name: nameSchema,
 	crop: cropSchema,
-	/** bu/ac for grains, tons/ac (as fed) for forages, before productivity and N response. */
-	yieldGoalPerAcre: nonNegative,
-	/** A stated change to yield for the practice itself, e.g. wide rows; negative for a loss. */
-	yieldAdjustmentPercent: z.number().min(-100).max(100).default(0),
+	yieldGoalPerAcre: nonNegative.describe(
+		'bu/ac for grains, tons/ac (as fed) for forages, before productivity and N response.'
+	),
+	yieldAdjustmentPercent: z
+		.number()
+		.min(-100)
+		.max(100)
+		.default(0)
+		.describe(
+			'A stated change to yield for the practice itself, e.g. wide rows; negative for a loss.'
+		),
 	rowSpacingIn: positive.nullable().default(null),
 	seed: seedingSchema.nullable().default(null),
 	nitrogen: z
 		.strictObject({
-			/** lb N/ac bought and applied, or 'economic-optimum' to buy up to the EONR less credits. */
-			appliedLbPerAcre: z.union([nonNegative, z.literal('economic-optimum')]).default(0),
+			appliedLbPerAcre: z
+				.union([nonNegative, z.literal('economic-optimum')])
+				.default(0)
+				.describe(
+					"lb N/ac bought and applied, or 'economic-optimum' to buy up to the EONR less credits."
+				),
 			response: nitrogenResponseSchema.nullable().default(null)
 		})
 		.prefault({}),
 	nitrogenCreditToNextCropLbPerAcre: nonNegative.default(0),
 	otherFertiliserUsdPerAcre: nonNegative,
 	chemicalsUsdPerAcre: nonNegative,
-	/** Drying, hauling, crop insurance and other direct costs per acre. */
-	otherDirectUsdPerAcre: nonNegative.default(0),
+	otherDirectUsdPerAcre: nonNegative
+		.default(0)
+		.describe('Drying, hauling, crop insurance and other direct costs per acre.'),
 	// Common practice, no published source: operating money is carried about six months, planting to harvest.
 	operatingInterestMonths: z.number().min(0).max(24).default(6),
 	operations: z
 		.array(
 			z.strictObject({
 				operationId: idSchema,
-				/** Overrides the operation's usual month for this practice. */
-				month: monthSchema.optional(),
+				month: monthSchema
+					.optional()
+					.describe("Overrides the operation's usual month for this practice."),
 				passes: z.number().int().min(1).default(1)
 			})
 		)
@@ -192,8 +230,10 @@ export const cropPracticeSchema = z.strictObject({
 export const rotationSchema = z.strictObject({
 	id: idSchema,
 	name: nameSchema,
-	/** Practice ids, one per year, in order. */
-	practices: z.array(idSchema).min(1, 'A rotation needs at least one practice')
+	practices: z
+		.array(idSchema)
+		.min(1, 'A rotation needs at least one practice')
+		.describe('Practice ids, one per year, in order.')
 });
 
 const seedPriceSchema = z.strictObject({
@@ -203,8 +243,9 @@ const seedPriceSchema = z.strictObject({
 
 export const priceSetSchema = z.strictObject({
 	year: yearSchema,
-	/** $/bu for grains, $/ton for forages. */
-	cropPricesUsdPerUnit: z.partialRecord(cropSchema, nonNegative),
+	cropPricesUsdPerUnit: z
+		.partialRecord(cropSchema, nonNegative)
+		.describe('$/bu for grains, $/ton for forages.'),
 	nitrogenUsdPerLb: nonNegative,
 	dieselUsdPerGallon: nonNegative,
 	labourUsdPerHour: nonNegative,
@@ -223,12 +264,18 @@ export const planSchema = z.strictObject({
 		z.strictObject({
 			fieldId: idSchema,
 			rotationId: idSchema,
-			/** 1 = the rotation's first practice in the first plan year. */
-			startingPhase: z.number().int().min(1).default(1)
+			startingPhase: z
+				.number()
+				.int()
+				.min(1)
+				.default(1)
+				.describe("1 = the rotation's first practice in the first plan year.")
 		})
 	),
-	/** Plain statements shown with the results (what the plan takes for granted). */
-	assumptions: z.array(z.string()).default([])
+	assumptions: z
+		.array(z.string())
+		.default([])
+		.describe('Plain statements shown with the results (what the plan takes for granted).')
 });
 
 const planDocumentShape = z.strictObject({

@@ -1,0 +1,130 @@
+/**
+ * Engine speed and memory: `npm run bench`. Evaluates a generated 100-field, 5-year plan that uses
+ * every demo rotation, many times, and reports the median time per evaluation and the peak memory.
+ * Exits 1 when a target is missed: under 5 ms per evaluation of a validated plan, under 20 ms with
+ * validation.
+ */
+import { readFileSync } from 'node:fs';
+import { performance } from 'node:perf_hooks';
+import { evaluatePlan } from '../src/lib/engine';
+import { parsePlanDocument, type PlanDocument } from '../src/lib/schemas/plan-file';
+
+const fieldCount = 100;
+const runs = 300;
+const warmUpRuns = 30;
+const targetsMs = { evaluate: 5, parseAndEvaluate: 20 };
+
+type PlanJson = {
+	fields: Record<string, unknown>[];
+	practices: { id: string }[];
+	rotations: { id: string }[];
+	plan: { name: string; fieldRotations: unknown[] };
+};
+
+function readScenario(name: string): PlanJson {
+	return JSON.parse(readFileSync(`scenarios/${name}.json`, 'utf8'));
+}
+
+/** The demo farm's practices and rotations on 100 generated fields (sizes from a fixed sequence). */
+function generatedPlan(): PlanJson {
+	const scenarios = ['reference', 'wide-row-interseeded', 'small-grain-peas', 'reduced-n'].map(
+		readScenario
+	);
+	const doc = structuredClone(scenarios[2]);
+	const byId = <T extends { id: string }>(lists: T[][]) => [
+		...new Map(lists.flat().map((item) => [item.id, item])).values()
+	];
+	doc.practices = byId(scenarios.map((s) => s.practices));
+	doc.rotations = byId(scenarios.map((s) => s.rotations));
+	const rotationLengths = doc.rotations.map(
+		(r) => (r as unknown as { practices: string[] }).practices.length
+	);
+	doc.fields = [];
+	doc.plan.fieldRotations = [];
+	for (let i = 0; i < fieldCount; i++) {
+		const id = `field-${i + 1}`;
+		doc.fields.push({
+			id,
+			name: `Field ${i + 1}`,
+			acres: 10 + ((i * 37) % 71),
+			productivityIndex: 0.85 + ((i * 13) % 31) / 100
+		});
+		const rotation = i % doc.rotations.length;
+		doc.plan.fieldRotations.push({
+			fieldId: id,
+			rotationId: doc.rotations[rotation].id,
+			startingPhase: 1 + (i % rotationLengths[rotation])
+		});
+	}
+	doc.plan.name = 'Bench: 100 fields';
+	return doc;
+}
+
+function validated(json: unknown): PlanDocument {
+	const parsed = parsePlanDocument(json);
+	if (!parsed.ok) throw new Error(`generated plan is invalid: ${JSON.stringify(parsed.issues)}`);
+	return parsed.plan;
+}
+
+let peakHeapBytes = 0;
+
+function medianMs(work: () => unknown): number {
+	for (let i = 0; i < warmUpRuns; i++) work();
+	const times: number[] = [];
+	for (let i = 0; i < runs; i++) {
+		const start = performance.now();
+		work();
+		times.push(performance.now() - start);
+		if (i % 25 === 0) peakHeapBytes = Math.max(peakHeapBytes, process.memoryUsage().heapUsed);
+	}
+	times.sort((a, b) => a - b);
+	return times[Math.floor(times.length / 2)];
+}
+
+const json = generatedPlan();
+const plan = validated(json);
+const referenceFor100 = validated({
+	...structuredClone(json),
+	plan: { ...json.plan, name: 'Bench reference' }
+});
+const fieldYears = evaluatePlan(plan).fieldYears.length;
+
+const rows = [
+	{
+		what: 'evaluate (validated plan)',
+		ms: medianMs(() => evaluatePlan(plan)),
+		target: targetsMs.evaluate
+	},
+	{
+		what: 'evaluate + partial budget',
+		ms: medianMs(() => evaluatePlan(plan, referenceFor100)),
+		target: null
+	},
+	{
+		what: 'validate + evaluate',
+		ms: medianMs(() => evaluatePlan(validated(json))),
+		target: targetsMs.parseAndEvaluate
+	}
+];
+
+const maxRssMb = process.resourceUsage().maxRSS / 1024;
+const peakHeapMb = Math.max(peakHeapBytes, process.memoryUsage().heapUsed) / 1024 / 1024;
+
+const pad = (s: string, n: number) => s.padEnd(n);
+const num = (x: number, digits: number) => x.toFixed(digits).padStart(9);
+console.log(
+	`Plan: ${fieldCount} fields × 5 years = ${fieldYears} field-years; median of ${runs} runs`
+);
+console.log(`${pad('measure', 28)}${'median ms'.padStart(9)}  ${'target'.padStart(8)}  result`);
+let missed = false;
+for (const row of rows) {
+	const ok = row.target === null || row.ms < row.target;
+	missed ||= !ok;
+	const target = row.target === null ? '-' : `< ${row.target}`;
+	console.log(
+		`${pad(row.what, 28)}${num(row.ms, 3)}  ${target.padStart(8)}  ${ok ? 'ok' : 'OVER'}`
+	);
+}
+console.log(`${pad('peak RSS (maxRSS)', 28)}${num(maxRssMb, 1)}  ${'MB'.padStart(8)}`);
+console.log(`${pad('peak JS heap (sampled)', 28)}${num(peakHeapMb, 1)}  ${'MB'.padStart(8)}`);
+if (missed) process.exitCode = 1;

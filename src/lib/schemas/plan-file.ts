@@ -87,7 +87,7 @@ export const herdSchema = z.strictObject({
 		),
 	baleWeightLb: positive,
 	// UNL and UF/IFAS examples use hay at 88 % dry matter.
-	baleDryMatterPercent: percentSchema.default(88),
+	baleDryMatterPercent: percentSchema.gt(0, 'Must be more than 0 %').default(88),
 	feedingWastePercent: percentSchema,
 	choreHoursPerDayFeedingHay: nonNegative,
 	choreHoursPerDayGrazing: nonNegative,

@@ -45,6 +45,7 @@ CREATE TABLE "crop_practices" (
 	"yield_goal_per_acre" numeric(10, 2) NOT NULL,
 	"other_fertiliser_usd_per_acre" numeric(8, 2) NOT NULL,
 	"chemicals_usd_per_acre" numeric(8, 2) NOT NULL,
+	"other_direct_usd_per_acre" numeric(8, 2) NOT NULL,
 	"detail" jsonb NOT NULL,
 	"created_at" timestamp with time zone DEFAULT now() NOT NULL,
 	"updated_at" timestamp with time zone DEFAULT now() NOT NULL
@@ -57,6 +58,7 @@ CREATE TABLE "farms" (
 	"unit_system" "unit_system" DEFAULT 'us' NOT NULL,
 	"labour_hours_available_by_month" jsonb NOT NULL,
 	"interest_rate_percent" numeric(5, 2) DEFAULT 6 NOT NULL,
+	"fixed_costs_usd_per_year" numeric(12, 2) DEFAULT 0 NOT NULL,
 	"created_at" timestamp with time zone DEFAULT now() NOT NULL,
 	"updated_at" timestamp with time zone DEFAULT now() NOT NULL
 );

@@ -103,3 +103,12 @@ describe('parsePlanDocument', () => {
 		);
 	});
 });
+
+describe('prices the N response needs', () => {
+	it('refuses a zero grain price for a crop with an N response curve, naming the price', () => {
+		// The fixture's corn practice carries an N response curve.
+		const input = smallPlanInput();
+		input.priceSets[0].cropPricesUsdPerUnit.corn = 0;
+		expect(issuesOf(input).map((i) => i.path)).toContain('priceSets.0.cropPricesUsdPerUnit.corn');
+	});
+});

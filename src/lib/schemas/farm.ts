@@ -24,6 +24,13 @@ export const farmSchema = z.strictObject({
 	interestRatePercent: number('the rate')
 		.min(0, { error: 'The rate cannot be negative.' })
 		.max(50, { error: 'Enter a rate of at most 50 %.' })
+		.describe('Annual rate charged on operating costs for the months they are carried.'),
+	fixedCostsUsdPerYear: number('fixed costs')
+		.min(0, { error: 'Fixed costs cannot be negative.' })
+		.default(0)
+		.describe(
+			'Land, machinery and building ownership, insurance, overhead: costs the plan does not change.'
+		)
 });
 
 export type FarmSettings = z.output<typeof farmSchema>;
@@ -44,6 +51,7 @@ export function farmSettingsFromForm(form: FormData): Record<string, unknown> {
 		region: form.get('region') ?? undefined,
 		unitSystem: form.get('unitSystem') ?? undefined,
 		labourHoursAvailableByMonth: form.getAll('labourHours').map(formNumber),
-		interestRatePercent: formNumber(form.get('interestRatePercent'))
+		interestRatePercent: formNumber(form.get('interestRatePercent')),
+		fixedCostsUsdPerYear: formNumber(form.get('fixedCostsUsdPerYear'))
 	};
 }

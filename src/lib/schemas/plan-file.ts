@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { farmSchema } from './farm';
 import { toFieldIssues, type FieldIssue } from './issues';
 
 /**
@@ -34,22 +35,8 @@ export const cropSchema = z.enum([
 	'hay'
 ]);
 
-export const farmSchema = z.strictObject({
-	name: nameSchema,
-	region: nameSchema,
-	unitSystem: z.enum(['us', 'metric']).default('us'),
-	labourHoursAvailableByMonth: z
-		.array(nonNegative)
-		.length(12, 'Give 12 monthly values, January to December'),
-	interestRatePercent: percentSchema.describe(
-		'Annual rate charged on operating costs for the months they are carried.'
-	),
-	fixedCostsUsdPerYear: nonNegative
-		.default(0)
-		.describe(
-			'Land, machinery and building ownership, insurance, overhead: costs the plan does not change.'
-		)
-});
+// The farm part is the same shape the farm settings form and API take: one schema for both.
+export { farmSchema };
 
 export const fieldSchema = z.strictObject({
 	id: idSchema,
@@ -395,11 +382,18 @@ function checkReferences(doc: Shape, ctx: z.RefinementCtx) {
 			refuse(['priceSets', i, 'year'], `Duplicate price set for ${set.year}`);
 		priceSetIndexByYear.set(set.year, i);
 		for (const id of usedPracticeIds) {
-			const crop = practiceById.get(id)?.crop;
+			const practice = practiceById.get(id);
+			const crop = practice?.crop;
 			if (crop && set.cropPricesUsdPerUnit[crop] === undefined) {
 				refuse(
 					['priceSets', i, 'cropPricesUsdPerUnit', crop],
 					`No price for ${crop} (practice "${id}")`
+				);
+			} else if (crop && practice.nitrogen.response && set.cropPricesUsdPerUnit[crop] === 0) {
+				// The N price ratio ($/lb N ÷ $/bu) has no meaning at a grain price of zero.
+				refuse(
+					['priceSets', i, 'cropPricesUsdPerUnit', crop],
+					`A ${crop} price above 0 is needed for the N response of practice "${id}"`
 				);
 			}
 		}

@@ -147,6 +147,7 @@ export async function importPlanDocument(
 					yieldGoalPerAcre,
 					otherFertiliserUsdPerAcre,
 					chemicalsUsdPerAcre,
+					otherDirectUsdPerAcre,
 					operations: _,
 					...detail
 				}) => ({
@@ -157,6 +158,7 @@ export async function importPlanDocument(
 					yieldGoalPerAcre,
 					otherFertiliserUsdPerAcre,
 					chemicalsUsdPerAcre,
+					otherDirectUsdPerAcre,
 					detail
 				})
 			)

@@ -101,6 +101,8 @@ export const farms = pgTable('farms', {
 	labourHoursAvailableByMonth: jsonb().$type<number[]>().notNull(),
 	/** Annual rate charged on operating money for the months it is carried. */
 	interestRatePercent: numeric({ mode: 'number', precision: 5, scale: 2 }).notNull().default(6.0),
+	/** Ownership and overhead costs no plan changes: land, machinery, buildings, insurance. */
+	fixedCostsUsdPerYear: numeric({ mode: 'number', precision: 12, scale: 2 }).notNull().default(0),
 	...timestamps
 });
 
@@ -270,6 +272,8 @@ export const cropPractices = pgTable(
 		yieldGoalPerAcre: numeric({ mode: 'number', precision: 10, scale: 2 }).notNull(),
 		otherFertiliserUsdPerAcre: numeric({ mode: 'number', precision: 8, scale: 2 }).notNull(),
 		chemicalsUsdPerAcre: numeric({ mode: 'number', precision: 8, scale: 2 }).notNull(),
+		/** Drying, hauling, crop insurance and the like. */
+		otherDirectUsdPerAcre: numeric({ mode: 'number', precision: 8, scale: 2 }).notNull(),
 		/** The rest as the plan file states it: seed, N rate and response, cover mix, credits, grazing. */
 		detail: jsonb().$type<Record<string, unknown>>().notNull(),
 		...timestamps

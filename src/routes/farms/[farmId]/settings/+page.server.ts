@@ -14,7 +14,8 @@ export const load = (async (event) => {
 			region: farm.region,
 			unitSystem: farm.unitSystem,
 			labourHoursAvailableByMonth: farm.labourHoursAvailableByMonth,
-			interestRatePercent: farm.interestRatePercent
+			interestRatePercent: farm.interestRatePercent,
+			fixedCostsUsdPerYear: farm.fixedCostsUsdPerYear
 		}
 	};
 }) satisfies PageServerLoad;

@@ -31,6 +31,7 @@ function farmJson(farm: {
 	unitSystem: 'us' | 'metric';
 	labourHoursAvailableByMonth: number[];
 	interestRatePercent: number;
+	fixedCostsUsdPerYear: number;
 }) {
 	return {
 		id: farm.id,
@@ -38,6 +39,7 @@ function farmJson(farm: {
 		region: farm.region,
 		unitSystem: farm.unitSystem,
 		labourHoursAvailableByMonth: farm.labourHoursAvailableByMonth,
-		interestRatePercent: farm.interestRatePercent
+		interestRatePercent: farm.interestRatePercent,
+		fixedCostsUsdPerYear: farm.fixedCostsUsdPerYear
 	};
 }

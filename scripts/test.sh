@@ -31,4 +31,9 @@ ensure_chromium
 ensure_build
 
 say 'tests'
-npx vitest run "$@"
+status=0
+npx vitest run --reporter=default --reporter=json --outputFile.json=test-results/vitest.json "$@" || status=$?
+# One plain closing line for CI: how many passed and failed.
+node -e "const r = require('./test-results/vitest.json');
+console.log('vitest: ' + r.numPassedTests + ' passed, ' + r.numFailedTests + ' failed')"
+exit "$status"

@@ -1,0 +1,57 @@
+// Every screen at phone and desktop width: nothing wider than the window, and a screenshot to look at.
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { BrowserContext, Page } from 'playwright-core';
+import { openBrowser, screenshot, signInAs, viewports } from '../support/browser';
+import { demoUsers } from '../support/server';
+
+let context: BrowserContext;
+let close: () => Promise<void>;
+let farmPath: string;
+
+beforeAll(async () => {
+	({ context, close } = await openBrowser());
+	const page = await context.newPage();
+	await signInAs(page, demoUsers.admin);
+	await page.waitForURL('**/farms');
+	await page.close();
+});
+afterAll(() => close());
+
+async function horizontalOverflow(page: Page) {
+	return page.evaluate(() => document.documentElement.scrollWidth - window.innerWidth);
+}
+
+describe.each(Object.entries(viewports))('at %s width', (size, viewport) => {
+	it('the farm list, a new farm form and the settings fit the window', async () => {
+		const page = await context.newPage();
+		await page.setViewportSize(viewport);
+		await page.goto('/farms');
+		// The form starts open for someone with no farms yet, folded away otherwise.
+		const formOpen = await page.locator('details').evaluate((d) => (d as HTMLDetailsElement).open);
+		if (!formOpen) await page.getByText('New farm…').click();
+		await page.getByRole('button', { name: 'Create farm' }).click();
+		await page.waitForSelector('[data-error-for="name"]');
+		expect(await horizontalOverflow(page)).toBeLessThanOrEqual(0);
+		await screenshot(page, `new-farm-errors-${size}`);
+
+		await page.getByLabel('Farm name').fill(`Screens farm ${size}`);
+		await page.getByRole('button', { name: 'Create farm' }).click();
+		await page.waitForURL(/\/farms\/[0-9a-f-]{36}$/);
+		farmPath = new URL(page.url()).pathname;
+		await page.goto(`${farmPath}/settings`);
+		await expect(page.getByLabel('Farm name').inputValue()).resolves.toBe(`Screens farm ${size}`);
+		expect(await horizontalOverflow(page)).toBeLessThanOrEqual(0);
+		await screenshot(page, `farm-settings-${size}`);
+		await page.close();
+	});
+
+	it.each(['/admin', '/glossary', '/'])('%s fits the window', async (path) => {
+		const page = await context.newPage();
+		await page.setViewportSize(viewport);
+		const response = await page.goto(path);
+		expect(response?.status()).toBe(200);
+		expect(await horizontalOverflow(page)).toBeLessThanOrEqual(0);
+		await screenshot(page, `${path.slice(1) || 'home'}-${size}`);
+		await page.close();
+	});
+});

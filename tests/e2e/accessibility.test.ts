@@ -1,0 +1,58 @@
+// Accessibility rules (WCAG 2.1 A and AA, as axe-core checks them) on the main screens.
+import AxeBuilder from '@axe-core/playwright';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { BrowserContext, Page } from 'playwright-core';
+import { openBrowser, signInAs } from '../support/browser';
+import { demoUsers } from '../support/server';
+
+let context: BrowserContext;
+let close: () => Promise<void>;
+let farmPath: string;
+
+beforeAll(async () => {
+	({ context, close } = await openBrowser());
+	const page = await context.newPage();
+	await signInAs(page, demoUsers.owner);
+	await page.waitForURL('**/farms');
+	await page.getByText('Maple Coulee Farm').click();
+	await page.waitForURL(/\/farms\/[0-9a-f-]{36}$/);
+	farmPath = new URL(page.url()).pathname;
+	await page.close();
+});
+afterAll(() => close());
+
+async function violations(page: Page) {
+	const results = await new AxeBuilder({ page })
+		.withTags(['wcag2a', 'wcag2aa', 'wcag21a', 'wcag21aa'])
+		.analyze();
+	// A check that ran at all passes some rules; none passed would mean axe saw no page.
+	expect(results.passes.length).toBeGreaterThan(0);
+	return results.violations.map(
+		(v) => `${v.id}: ${v.nodes.map((n) => n.target.join(' ')).join(', ')}`
+	);
+}
+
+const screens: [string, () => string][] = [
+	['farm list', () => '/farms'],
+	['farm home', () => farmPath],
+	['farm data', () => `${farmPath}/data`],
+	['farm settings', () => `${farmPath}/settings`],
+	['glossary', () => '/glossary']
+];
+
+describe('accessibility', () => {
+	it.each(screens)('the %s has no WCAG A/AA violations', async (_name, path) => {
+		const page = await context.newPage();
+		await page.goto(path());
+		expect(await violations(page)).toEqual([]);
+		await page.close();
+	});
+
+	it('the sign-in page has none, signed out', async () => {
+		const { context: fresh, close: closeFresh } = await openBrowser();
+		const page = await fresh.newPage();
+		await page.goto('/signin');
+		expect(await violations(page)).toEqual([]);
+		await closeFresh();
+	});
+});

@@ -17,6 +17,7 @@ import {
 	uuid,
 	varchar
 } from 'drizzle-orm/pg-core';
+import type { Crop } from '../../schemas/plan-file';
 
 /** Creation and update times, the same on every table that a person edits. */
 const timestamps = {
@@ -267,7 +268,7 @@ export const cropPractices = pgTable(
 			.references(() => farms.id, { onDelete: 'cascade' }),
 		key: text().notNull(),
 		name: text().notNull(),
-		crop: text().notNull(),
+		crop: text().$type<Crop>().notNull(),
 		/** bu/ac for grains, tons/ac for forages. */
 		yieldGoalPerAcre: numeric({ mode: 'number', precision: 10, scale: 2 }).notNull(),
 		otherFertiliserUsdPerAcre: numeric({ mode: 'number', precision: 8, scale: 2 }).notNull(),

@@ -1,8 +1,9 @@
 import type { Herd, PriceSet } from '../schemas/plan-file';
-import { feedingYear } from './forage';
+import { feedingYear, type FeedingYear } from './forage';
 import type { FieldYearResult } from './field-year';
 
-export interface FarmYearResult {
+/** The herd's year (demand, grazing, hay, chores) comes from the forage ledger as it is. */
+export interface FarmYearResult extends FeedingYear {
 	year: number;
 	acres: number;
 	revenueUsd: number;
@@ -19,20 +20,10 @@ export interface FarmYearResult {
 	dieselGallons: number;
 	machineHours: number;
 	fieldLabourHours: number;
-	choreHours: number;
-	choreHoursByMonth: number[];
 	labourHours: number;
 	labourHoursByMonth: number[];
 	labourHoursAvailableByMonth: number[];
 	labourShortfallHoursByMonth: number[];
-	animalUnits: number;
-	herdDemandAuDays: number;
-	grazingAuDaysOffered: number;
-	grazingAuDays: number;
-	grazingDays: number;
-	hayFeedingDays: number;
-	hayDmLb: number;
-	hayBales: number;
 }
 
 /** Whole-farm totals for one year: the field-years summed, then the herd fed by grazing and hay. */

@@ -14,6 +14,19 @@ import {
 	rotations
 } from './schema';
 
+/** A farm row as its settings (the farm schema's shape) with its id: what forms and the API show. */
+export function farmSettingsOf(farm: typeof farms.$inferSelect): FarmSettings & { id: string } {
+	return {
+		id: farm.id,
+		name: farm.name,
+		region: farm.region,
+		unitSystem: farm.unitSystem,
+		labourHoursAvailableByMonth: farm.labourHoursAvailableByMonth,
+		interestRatePercent: farm.interestRatePercent,
+		fixedCostsUsdPerYear: farm.fixedCostsUsdPerYear
+	};
+}
+
 export async function listFarmsForUser(userId: string) {
 	return db
 		.select({ id: farms.id, name: farms.name, region: farms.region, role: memberships.role })

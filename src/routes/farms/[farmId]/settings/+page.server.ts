@@ -2,22 +2,12 @@ import { fail, redirect } from '@sveltejs/kit';
 import { farmSettingsFromForm, farmSchema } from '$lib/schemas/farm';
 import { toFieldErrors } from '$lib/schemas/issues';
 import { requireFarmAccess } from '$lib/server/auth/access';
-import { updateFarm } from '$lib/server/db/farms';
+import { farmSettingsOf, updateFarm } from '$lib/server/db/farms';
 import type { Actions, PageServerLoad } from './$types';
 
 export const load = (async (event) => {
 	const { farm } = await requireFarmAccess(event, event.params.farmId, 'farm:edit');
-	return {
-		farm: {
-			id: farm.id,
-			name: farm.name,
-			region: farm.region,
-			unitSystem: farm.unitSystem,
-			labourHoursAvailableByMonth: farm.labourHoursAvailableByMonth,
-			interestRatePercent: farm.interestRatePercent,
-			fixedCostsUsdPerYear: farm.fixedCostsUsdPerYear
-		}
-	};
+	return { farm: farmSettingsOf(farm) };
 }) satisfies PageServerLoad;
 
 export const actions = {

@@ -156,6 +156,7 @@ CREATE TABLE "plan_versions" (
 	"start_year" smallint NOT NULL,
 	"years" smallint NOT NULL,
 	"assumptions" jsonb DEFAULT '[]'::jsonb NOT NULL,
+	"herd" jsonb,
 	"notes" text DEFAULT '' NOT NULL,
 	"saved_by_id" uuid,
 	"created_at" timestamp with time zone DEFAULT now() NOT NULL

@@ -1,6 +1,6 @@
-import { and, eq, inArray } from 'drizzle-orm';
-import type { PlanDocument } from '$lib/schemas/plan-file';
-import type { Tx } from './client';
+import { and, asc, eq, inArray } from 'drizzle-orm';
+import type { PlanDocument, PlanDocumentInput } from '$lib/schemas/plan-file';
+import type { Db, Tx } from './client';
 import {
 	auditLog,
 	cropPractices,
@@ -224,6 +224,7 @@ export async function importPlanDocument(
 			startYear: doc.plan.horizon.startYear,
 			years: doc.plan.horizon.years,
 			assumptions: doc.plan.assumptions,
+			herd: doc.herd,
 			notes: doc.notes,
 			savedById: userId
 		})
@@ -243,4 +244,159 @@ export async function importPlanDocument(
 		detail: { planId: plan.id, name: doc.plan.name }
 	});
 	return { planId: plan.id, planVersionId: version.id };
+}
+
+type OperationInput = PlanDocumentInput['operations'] extends (infer T)[] | undefined ? T : never;
+type PriceSetInput = PlanDocumentInput['priceSets'][number];
+
+/**
+ * The plan file of a plan's current version: the farm with its operations, practices and rotations,
+ * the fields the plan assigns, and the prices of the plan's years. Parse it with `parsePlanDocument`.
+ */
+export async function exportPlanDocument(db: Db | Tx, planId: string): Promise<PlanDocumentInput> {
+	const plan = await db.query.plans.findFirst({
+		where: eq(plans.id, planId),
+		with: {
+			farm: true,
+			versions: { with: { assignments: { with: { field: true, rotation: true } } } }
+		}
+	});
+	if (!plan) throw new Error(`No plan ${planId}`);
+	const version = plan.versions.find((v) => v.version === plan.currentVersion);
+	if (!version) throw new Error(`Plan ${planId} has no version ${plan.currentVersion}`);
+	const { farm } = plan;
+	const assignments = [...version.assignments].sort((a, b) =>
+		a.field.key.localeCompare(b.field.key)
+	);
+	const years = Array.from({ length: version.years }, (_, i) => version.startYear + i);
+	const [operationRows, practiceRows, rotationRows, priceRows] = await Promise.all([
+		db.query.fieldOperations.findMany({
+			where: eq(fieldOperations.farmId, farm.id),
+			orderBy: asc(fieldOperations.key)
+		}),
+		db.query.cropPractices.findMany({
+			where: eq(cropPractices.farmId, farm.id),
+			orderBy: asc(cropPractices.key),
+			with: { operations: { with: { operation: { columns: { key: true } } } } }
+		}),
+		db.query.rotations.findMany({
+			where: eq(rotations.farmId, farm.id),
+			orderBy: asc(rotations.key),
+			with: { steps: { with: { practice: { columns: { key: true } } } } }
+		}),
+		db.query.priceSets.findMany({
+			where: and(eq(priceSets.farmId, farm.id), inArray(priceSets.year, years)),
+			orderBy: asc(priceSets.year),
+			with: { items: true }
+		})
+	]);
+
+	return {
+		formatVersion: 1,
+		notes: version.notes,
+		farm: {
+			name: farm.name,
+			region: farm.region,
+			unitSystem: farm.unitSystem,
+			labourHoursAvailableByMonth: farm.labourHoursAvailableByMonth,
+			interestRatePercent: farm.interestRatePercent,
+			fixedCostsUsdPerYear: farm.fixedCostsUsdPerYear
+		},
+		fields: assignments.map(({ field }) => ({
+			id: field.key,
+			name: field.name,
+			acres: field.acres,
+			productivityIndex: field.productivityIndex,
+			priorCrop: field.priorCrop,
+			priorCropNitrogenCreditLbPerAcre: field.priorCropNitrogenCreditLbPerAcre,
+			notes: field.notes
+		})),
+		herd: version.herd,
+		operations: operationRows.map(operationOf),
+		practices: practiceRows.map((practice) => ({
+			...(practice.detail as object),
+			id: practice.key,
+			name: practice.name,
+			crop: practice.crop,
+			yieldGoalPerAcre: practice.yieldGoalPerAcre,
+			otherFertiliserUsdPerAcre: practice.otherFertiliserUsdPerAcre,
+			chemicalsUsdPerAcre: practice.chemicalsUsdPerAcre,
+			otherDirectUsdPerAcre: practice.otherDirectUsdPerAcre,
+			operations: [...practice.operations]
+				.sort((a, b) => a.sequence - b.sequence)
+				.map((s) => ({
+					operationId: s.operation.key,
+					...(s.month === null ? {} : { month: s.month }),
+					passes: s.passes
+				}))
+		})),
+		rotations: rotationRows.map((rotation) => ({
+			id: rotation.key,
+			name: rotation.name,
+			practices: [...rotation.steps]
+				.sort((a, b) => a.position - b.position)
+				.map((s) => s.practice.key)
+		})),
+		priceSets: priceRows.map(priceSetOf),
+		plan: {
+			name: plan.name,
+			horizon: { startYear: version.startYear, years: version.years },
+			fieldRotations: assignments.map((a) => ({
+				fieldId: a.field.key,
+				rotationId: a.rotation.key,
+				startingPhase: a.startingPhase
+			})),
+			assumptions: version.assumptions
+		}
+	};
+}
+
+function operationOf(op: typeof fieldOperations.$inferSelect): OperationInput {
+	if (op.by === 'custom') return { id: op.key, name: op.name, by: 'custom', month: op.month };
+	const fuel =
+		op.fuelBasis === 'pto-power'
+			? {
+					basis: 'pto-power' as const,
+					tractorMaxPtoHp: op.tractorMaxPtoHp!,
+					dieselGallonsPerHpHour: op.dieselGallonsPerHpHour!
+				}
+			: { basis: 'per-acre' as const, dieselGallonsPerAcre: op.dieselGallonsPerAcre! };
+	return {
+		id: op.key,
+		name: op.name,
+		by: 'own',
+		month: op.month,
+		speedMph: op.speedMph!,
+		widthFt: op.widthFt!,
+		fieldEfficiencyPercent: op.fieldEfficiencyPercent!,
+		fuel,
+		labourFactor: op.labourFactor!,
+		repairsUsdPerAcre: op.repairsUsdPerAcre!
+	};
+}
+
+function priceSetOf(
+	set: typeof priceSets.$inferSelect & { items: (typeof priceSetItems.$inferSelect)[] }
+): PriceSetInput {
+	const of = (kind: (typeof priceSetItems.$inferSelect)['kind']) =>
+		set.items.filter((item) => item.kind === kind);
+	const seedPrices: Record<string, { usdPerThousandSeeds?: number; usdPerLb?: number }> = {};
+	for (const item of of('seed-per-thousand-seeds')) {
+		seedPrices[item.key] = { ...seedPrices[item.key], usdPerThousandSeeds: item.priceUsd };
+	}
+	for (const item of of('seed-per-lb')) {
+		seedPrices[item.key] = { ...seedPrices[item.key], usdPerLb: item.priceUsd };
+	}
+	return {
+		year: set.year,
+		cropPricesUsdPerUnit: Object.fromEntries(of('crop').map((i) => [i.key, i.priceUsd])),
+		nitrogenUsdPerLb: set.nitrogenUsdPerLb,
+		dieselUsdPerGallon: set.dieselUsdPerGallon,
+		labourUsdPerHour: set.labourUsdPerHour,
+		hayUsdPerBale: set.hayUsdPerBale,
+		seedPrices,
+		customRatesUsdPerAcre: Object.fromEntries(
+			of('custom-rate-per-acre').map((i) => [i.key, i.priceUsd])
+		)
+	};
 }

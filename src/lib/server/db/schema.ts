@@ -17,7 +17,7 @@ import {
 	uuid,
 	varchar
 } from 'drizzle-orm/pg-core';
-import type { Crop } from '../../schemas/plan-file';
+import type { Crop, Herd } from '../../schemas/plan-file';
 
 /** Creation and update times, the same on every table that a person edits. */
 const timestamps = {
@@ -364,6 +364,11 @@ export const planVersions = pgTable(
 		years: smallint().notNull(),
 		/** Plain statements shown with the results. */
 		assumptions: jsonb().$type<string[]>().notNull().default([]),
+		/**
+		 * The herd as this plan runs it (grazing season, manure credit…), starting from the farm's herd;
+		 * null: the plan keeps no cattle. Stated as the plan file's `herd`.
+		 */
+		herd: jsonb().$type<Herd>(),
 		notes: text().notNull().default(''),
 		savedById: uuid().references(() => users.id, { onDelete: 'set null' }),
 		createdAt: timestamp({ withTimezone: true }).notNull().defaultNow()

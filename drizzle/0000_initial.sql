@@ -57,7 +57,7 @@ CREATE TABLE "farms" (
 	"region" text DEFAULT '' NOT NULL,
 	"unit_system" "unit_system" DEFAULT 'us' NOT NULL,
 	"labour_hours_available_by_month" jsonb NOT NULL,
-	"interest_rate_percent" numeric(5, 2) DEFAULT 6 NOT NULL,
+	"interest_rate_percent" numeric(5, 2) NOT NULL,
 	"fixed_costs_usd_per_year" numeric(12, 2) DEFAULT 0 NOT NULL,
 	"created_at" timestamp with time zone DEFAULT now() NOT NULL,
 	"updated_at" timestamp with time zone DEFAULT now() NOT NULL

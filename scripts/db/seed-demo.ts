@@ -18,28 +18,29 @@ const people = {
 	neighbour: { email: 'birchhollow@furrowcast.test', name: 'Abel Marsh' }
 };
 
-// Invented figures. Labour: two adults, more hours in the spring and harvest months.
-const demoFarms = [
-	{
-		name: 'Maple Coulee Farm',
-		region: 'Upper Midwest',
-		labourHoursAvailableByMonth: [180, 180, 220, 300, 340, 280, 260, 260, 300, 340, 260, 180],
-		members: [
-			['owner', 'owner'],
-			['partner', 'editor'],
-			['lender', 'reviewer']
-		]
-	},
-	{
+type Person = keyof typeof people;
+type Role = 'owner' | 'editor' | 'reviewer';
+
+const mapleCouleeMembers: [Person, Role][] = [
+	['owner', 'owner'],
+	['partner', 'editor'],
+	['lender', 'reviewer']
+];
+
+// A second client farm of the lender's, with settings only. Invented figures.
+const birchHollow = {
+	settings: {
 		name: 'Birch Hollow Farm',
 		region: 'Upper Midwest',
 		labourHoursAvailableByMonth: [160, 160, 180, 240, 280, 240, 220, 220, 240, 280, 220, 160],
-		members: [
-			['neighbour', 'owner'],
-			['lender', 'reviewer']
-		]
-	}
-] as const;
+		interestRatePercent: 7,
+		fixedCostsUsdPerYear: 90000
+	},
+	members: [
+		['neighbour', 'owner'],
+		['lender', 'reviewer']
+	] as [Person, Role][]
+};
 
 /** The demo farm's plan files; `reference.json` is its reference plan. */
 function demoPlans(): { file: string; doc: PlanDocument }[] {
@@ -82,30 +83,28 @@ try {
 					.returning({ id: users.id });
 				ids[key] = row.id;
 			}
-			for (const { members, ...farm } of demoFarms) {
-				const [row] = await tx
-					.insert(farms)
-					.values(
-						// The demo farm's settings come from its reference plan file when there is one.
-						plans.find((p) => p.doc.farm.name === farm.name)?.doc.farm ?? {
-							...farm,
-							labourHoursAvailableByMonth: [...farm.labourHoursAvailableByMonth]
-						}
-					)
-					.returning({ id: farms.id });
+			const addFarm = async (settings: typeof birchHollow.settings, members: [Person, Role][]) => {
+				const [farm] = await tx.insert(farms).values(settings).returning({ id: farms.id });
 				await tx
 					.insert(memberships)
-					.values(members.map(([person, role]) => ({ farmId: row.id, userId: ids[person], role })));
-				if (farm.name !== 'Maple Coulee Farm') continue;
-				for (const { file, doc } of plans) {
-					await importPlanDocument(tx, {
-						farmId: row.id,
-						userId: ids.owner,
-						doc,
-						isReference: file === 'reference.json'
-					});
-				}
+					.values(
+						members.map(([person, role]) => ({ farmId: farm.id, userId: ids[person], role }))
+					);
+				return farm.id;
+			};
+			// Maple Coulee Farm is its plan files: settings, fields, herd, prices, practices and plans.
+			const reference = plans.find(({ file }) => file === 'reference.json');
+			if (!reference) throw new Error('scenarios/reference.json is missing');
+			const mapleCouleeId = await addFarm(reference.doc.farm, mapleCouleeMembers);
+			for (const { file, doc } of plans) {
+				await importPlanDocument(tx, {
+					farmId: mapleCouleeId,
+					userId: ids.owner,
+					doc,
+					isReference: file === 'reference.json'
+				});
 			}
+			await addFarm(birchHollow.settings, birchHollow.members);
 		});
 		console.log('demo data seeded');
 	}

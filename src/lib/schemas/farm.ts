@@ -17,12 +17,14 @@ export const farmSchema = z.strictObject({
 		.array(
 			number('hours')
 				.min(0, { error: 'Hours cannot be negative.' })
+				// 31 days × 24 h: more than that is a typing slip.
 				.max(744, { error: 'A month has at most 744 hours.' }),
 			{ error: 'Give labour hours for each month, January to December.' }
 		)
 		.length(12, { error: 'Give labour hours for all 12 months, January to December.' }),
 	interestRatePercent: number('the rate')
 		.min(0, { error: 'The rate cannot be negative.' })
+		// A bound that catches slips such as 650 typed for 6.50, not a judgement of any loan.
 		.max(50, { error: 'Enter a rate of at most 50 %.' })
 		.describe('Annual rate charged on operating costs for the months they are carried.'),
 	fixedCostsUsdPerYear: number('fixed costs')

@@ -101,7 +101,7 @@ export const farms = pgTable('farms', {
 	/** Family labour available, hours per month, January to December. */
 	labourHoursAvailableByMonth: jsonb().$type<number[]>().notNull(),
 	/** Annual rate charged on operating money for the months it is carried. */
-	interestRatePercent: numeric({ mode: 'number', precision: 5, scale: 2 }).notNull().default(6.0),
+	interestRatePercent: numeric({ mode: 'number', precision: 5, scale: 2 }).notNull(),
 	/** Ownership and overhead costs no plan changes: land, machinery, buildings, insurance. */
 	fixedCostsUsdPerYear: numeric({ mode: 'number', precision: 12, scale: 2 }).notNull().default(0),
 	...timestamps

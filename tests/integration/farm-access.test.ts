@@ -1,5 +1,5 @@
 import { eq } from 'drizzle-orm';
-import { beforeAll, describe, expect, it } from 'vitest';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { farms, memberships } from '../../src/lib/server/db/schema';
 import { testDb } from '../support/db';
 import { newUser, signedIn, type Client } from '../support/http';
@@ -30,6 +30,16 @@ beforeAll(async () => {
 	const { farms: list } = await (await lender.fetch('/api/v1/farms')).json();
 	mapleId = list.find((f: { name: string }) => f.name === 'Maple Coulee Farm').id;
 	birchId = list.find((f: { name: string }) => f.name === 'Birch Hollow Farm').id;
+	const { farm } = await (await partner.fetch(`/api/v1/farms/${mapleId}`)).json();
+	const { id: _farmId, ...settings } = farm;
+	seededSettings = settings;
+});
+
+// Other test files compare the demo farm with its plan files: leave it as it was seeded.
+let seededSettings: Record<string, unknown>;
+afterAll(async () => {
+	const restored = await partner.json(`/api/v1/farms/${mapleId}`, 'PUT', seededSettings);
+	expect(restored.status).toBe(200);
 });
 
 const farmRow = (id: string) => db.query.farms.findFirst({ where: eq(farms.id, id) });

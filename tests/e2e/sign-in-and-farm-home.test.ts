@@ -34,6 +34,9 @@ describe.each(Object.entries(viewports))('at %s width', (name, viewport) => {
 		await expect(
 			page.getByText('Nitrogen rates must follow local regulations').isVisible()
 		).resolves.toBe(true);
+		await expect(page.getByTestId('members').textContent()).resolves.toMatch(
+			/Dana Whitcombe\s*· reviewer/
+		);
 		// Nothing may be wider than the window: tables scroll inside their own box.
 		const overflow = await page.evaluate(
 			() => document.documentElement.scrollWidth - window.innerWidth

@@ -11,7 +11,8 @@ import {
 	memberships,
 	plans,
 	priceSets,
-	rotations
+	rotations,
+	users
 } from './schema';
 
 /** A farm row as its settings (the farm schema's shape) with its id: what forms and the API show. */
@@ -63,41 +64,38 @@ export async function updateFarm(farmId: string, userId: string, settings: FarmS
 	});
 }
 
+/** Who can see the farm, owners first. */
+export async function listMembers(farmId: string) {
+	return db
+		.select({ name: users.name, email: users.email, role: memberships.role })
+		.from(memberships)
+		.innerJoin(users, eq(users.id, memberships.userId))
+		.where(eq(memberships.farmId, farmId))
+		.orderBy(memberships.role, users.email);
+}
+
 /** How far the farm is set up: one count per part, for the farm home's checklist. */
 export async function getFarmSetup(farmId: string) {
-	const [
-		fieldRows,
-		herdRows,
-		priceRows,
-		operationRows,
-		practiceRows,
-		rotationRows,
-		planRows,
-		members
-	] = await Promise.all([
-		db
-			.select({ n: count(), acres: sum(fields.acres) })
-			.from(fields)
-			.where(eq(fields.farmId, farmId)),
-		db
-			.select({ n: count(), head: sum(herds.head) })
-			.from(herds)
-			.where(eq(herds.farmId, farmId)),
-		db.select({ n: count() }).from(priceSets).where(eq(priceSets.farmId, farmId)),
-		db.select({ n: count() }).from(fieldOperations).where(eq(fieldOperations.farmId, farmId)),
-		db.select({ n: count() }).from(cropPractices).where(eq(cropPractices.farmId, farmId)),
-		db.select({ n: count() }).from(rotations).where(eq(rotations.farmId, farmId)),
-		db
-			.select({ n: count(), name: plans.name, isReference: plans.isReference })
-			.from(plans)
-			.where(eq(plans.farmId, farmId))
-			.groupBy(plans.name, plans.isReference),
-		db
-			.select({ n: count(), role: memberships.role })
-			.from(memberships)
-			.where(eq(memberships.farmId, farmId))
-			.groupBy(memberships.role)
-	]);
+	const [fieldRows, herdRows, priceRows, operationRows, practiceRows, rotationRows, planRows] =
+		await Promise.all([
+			db
+				.select({ n: count(), acres: sum(fields.acres) })
+				.from(fields)
+				.where(eq(fields.farmId, farmId)),
+			db
+				.select({ n: count(), head: sum(herds.head) })
+				.from(herds)
+				.where(eq(herds.farmId, farmId)),
+			db.select({ n: count() }).from(priceSets).where(eq(priceSets.farmId, farmId)),
+			db.select({ n: count() }).from(fieldOperations).where(eq(fieldOperations.farmId, farmId)),
+			db.select({ n: count() }).from(cropPractices).where(eq(cropPractices.farmId, farmId)),
+			db.select({ n: count() }).from(rotations).where(eq(rotations.farmId, farmId)),
+			db
+				.select({ n: count(), name: plans.name, isReference: plans.isReference })
+				.from(plans)
+				.where(eq(plans.farmId, farmId))
+				.groupBy(plans.name, plans.isReference)
+		]);
 	return {
 		fields: { count: fieldRows[0].n, acres: Number(fieldRows[0].acres ?? 0) },
 		herds: { count: herdRows[0].n, head: Number(herdRows[0].head ?? 0) },
@@ -106,7 +104,6 @@ export async function getFarmSetup(farmId: string) {
 		cropPractices: practiceRows[0].n,
 		rotations: rotationRows[0].n,
 		plans: planRows.reduce((total, row) => total + row.n, 0),
-		referencePlan: planRows.find((row) => row.isReference)?.name ?? null,
-		members: Object.fromEntries(members.map((row) => [row.role, row.n]))
+		referencePlan: planRows.find((row) => row.isReference)?.name ?? null
 	};
 }

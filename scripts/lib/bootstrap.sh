@@ -175,5 +175,5 @@ ensure_build() {
 		return
 	fi
 	say 'building the app'
-	npx vite build --logLevel warn
+	npx vite build --logLevel error
 }

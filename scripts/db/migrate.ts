@@ -1,4 +1,5 @@
 // Applies the committed SQL migrations in drizzle/ to DATABASE_URL.
+import './load-env';
 import { migrate } from 'drizzle-orm/node-postgres/migrator';
 import { createDb } from '../../src/lib/server/db/client';
 

@@ -1,5 +1,6 @@
 // Seeds the invented demo: Maple Coulee Farm, its people, a lender and a site administrator.
 // Demo-only: it refuses to run unless FURROWCAST_DEMO=1 (set by `npm start` and `npm test` in .env).
+import './load-env';
 import { readFileSync, readdirSync } from 'node:fs';
 import { eq } from 'drizzle-orm';
 import { parsePlanDocument, type PlanDocument } from '../../src/lib/schemas/plan-file';

@@ -8,8 +8,8 @@ const db = testDb();
 describe('the demo seed', () => {
 	it('refuses to run without FURROWCAST_DEMO=1, so demo sign-ins never reach another database', async () => {
 		const before = await db.$count(users);
-		const env = { ...process.env };
-		delete env.FURROWCAST_DEMO;
+		// Set but not 1, as on a server that is not a demo (variables already set win over .env).
+		const env = { ...process.env, FURROWCAST_DEMO: '' };
 		const run = spawnSync('npx', ['tsx', 'scripts/db/seed-demo.ts'], { env, encoding: 'utf8' });
 		expect(run.status).toBe(1);
 		expect(run.stderr).toContain('Refusing to seed demo accounts');

@@ -3,29 +3,9 @@ import { readFileSync } from 'node:fs';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { Client, signedIn } from '../support/http';
 import { demoUsers } from '../support/server';
+import { farmYearNames, partialBudgetNames } from '../support/result-contract';
 
 const scenario = (name: string) => JSON.parse(readFileSync(`scenarios/${name}.json`, 'utf8'));
-const farmYearNames = [
-	'year',
-	'netReturnUsd',
-	'revenueUsd',
-	'costsUsd',
-	'nitrogenPurchasedLb',
-	'dieselGallons',
-	'labourHours',
-	'labourHoursByMonth',
-	'grazingAuDays',
-	'hayBales',
-	'hayCostUsd'
-];
-const partialBudgetNames = [
-	'addedReturnsUsd',
-	'reducedCostsUsd',
-	'addedCostsUsd',
-	'reducedReturnsUsd',
-	'netChangeUsd'
-];
-
 let lender: Client;
 beforeAll(async () => {
 	lender = await signedIn(demoUsers.lender);

@@ -4,6 +4,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { promisify } from 'node:util';
 import { describe, expect, it } from 'vitest';
+import { farmYearNames, partialBudgetNames } from '../support/result-contract';
 
 const run = promisify(execFile);
 
@@ -29,32 +30,8 @@ const scenarioFiles = readdirSync('scenarios')
 	.filter((f) => f.endsWith('.json'))
 	.map((f) => join('scenarios', f));
 
-const farmYearNames = [
-	'year',
-	'netReturnUsd',
-	'netReturnUsdPerAcre',
-	'netReturnUsdPerFamilyLabourHour',
-	'revenueUsd',
-	'costsUsd',
-	'nitrogenPurchasedLb',
-	'dieselGallons',
-	'labourHours',
-	'labourHoursByMonth',
-	'choreHours',
-	'herdDemandAuDays',
-	'grazingAuDays',
-	'hayBales',
-	'hayCostUsd'
-];
-const budgetNames = [
-	'addedReturnsUsd',
-	'reducedCostsUsd',
-	'addedCostsUsd',
-	'reducedReturnsUsd',
-	'netChangeUsd',
-	'lines',
-	'perAcre'
-];
+// The contract names, and the lines and per-acre figures behind each part of the budget.
+const budgetNames = [...partialBudgetNames, 'lines', 'perAcre'];
 
 function writeTemp(name: string, text: string): string {
 	const file = join(mkdtempSync(join(tmpdir(), 'plan-cli-')), name);

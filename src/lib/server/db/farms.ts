@@ -1,6 +1,7 @@
 import { and, count, eq, sum } from 'drizzle-orm';
 import type { FarmSettings } from '$lib/schemas/farm';
 import { db } from '.';
+export { farmSettingsOf } from './farm-settings';
 import {
 	auditLog,
 	cropPractices,
@@ -14,19 +15,6 @@ import {
 	rotations,
 	users
 } from './schema';
-
-/** A farm row as its settings (the farm schema's shape) with its id: what forms and the API show. */
-export function farmSettingsOf(farm: typeof farms.$inferSelect): FarmSettings & { id: string } {
-	return {
-		id: farm.id,
-		name: farm.name,
-		region: farm.region,
-		unitSystem: farm.unitSystem,
-		labourHoursAvailableByMonth: farm.labourHoursAvailableByMonth,
-		interestRatePercent: farm.interestRatePercent,
-		fixedCostsUsdPerYear: farm.fixedCostsUsdPerYear
-	};
-}
 
 export async function listFarmsForUser(userId: string) {
 	return db

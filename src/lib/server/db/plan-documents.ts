@@ -1,6 +1,7 @@
 import { and, asc, eq, inArray } from 'drizzle-orm';
 import type { PlanDocument, PlanDocumentInput } from '$lib/schemas/plan-file';
 import type { Db, Tx } from './client';
+import { farmSettingsOf } from './farm-settings';
 import {
 	auditLog,
 	cropPractices,
@@ -291,17 +292,11 @@ export async function exportPlanDocument(db: Db | Tx, planId: string): Promise<P
 		})
 	]);
 
+	const { id: _farmId, ...settings } = farmSettingsOf(farm);
 	return {
 		formatVersion: 1,
 		notes: version.notes,
-		farm: {
-			name: farm.name,
-			region: farm.region,
-			unitSystem: farm.unitSystem,
-			labourHoursAvailableByMonth: farm.labourHoursAvailableByMonth,
-			interestRatePercent: farm.interestRatePercent,
-			fixedCostsUsdPerYear: farm.fixedCostsUsdPerYear
-		},
+		farm: settings,
 		fields: assignments.map(({ field }) => ({
 			id: field.key,
 			name: field.name,

@@ -28,6 +28,12 @@ const timestamps = {
 		.$onUpdate(() => new Date())
 };
 
+/** The farm a row belongs to; it goes when the farm goes. */
+const farmReference = () =>
+	uuid()
+		.notNull()
+		.references(() => farms.id, { onDelete: 'cascade' });
+
 export const farmRole = pgEnum('farm_role', ['owner', 'editor', 'reviewer']);
 export const unitSystem = pgEnum('unit_system', ['us', 'metric']);
 export const reviewDecision = pgEnum('review_decision', ['approved', 'changes_requested']);
@@ -110,9 +116,7 @@ export const farms = pgTable('farms', {
 export const memberships = pgTable(
 	'memberships',
 	{
-		farmId: uuid()
-			.notNull()
-			.references(() => farms.id, { onDelete: 'cascade' }),
+		farmId: farmReference(),
 		userId: uuid()
 			.notNull()
 			.references(() => users.id, { onDelete: 'cascade' }),
@@ -126,9 +130,7 @@ export const invitations = pgTable(
 	'invitations',
 	{
 		id: uuid().primaryKey().defaultRandom(),
-		farmId: uuid()
-			.notNull()
-			.references(() => farms.id, { onDelete: 'cascade' }),
+		farmId: farmReference(),
 		email: text().notNull(),
 		role: farmRole().notNull(),
 		/** SHA-256 of the token sent by mail; the token itself is never stored. */
@@ -147,9 +149,7 @@ export const fields = pgTable(
 	'fields',
 	{
 		id: uuid().primaryKey().defaultRandom(),
-		farmId: uuid()
-			.notNull()
-			.references(() => farms.id, { onDelete: 'cascade' }),
+		farmId: farmReference(),
 		key: text().notNull(),
 		name: text().notNull(),
 		acres: numeric({ mode: 'number', precision: 10, scale: 2 }).notNull(),
@@ -168,10 +168,7 @@ export const fields = pgTable(
 /** The farm's cow herd (one per farm). */
 export const herds = pgTable('herds', {
 	id: uuid().primaryKey().defaultRandom(),
-	farmId: uuid()
-		.notNull()
-		.unique()
-		.references(() => farms.id, { onDelete: 'cascade' }),
+	farmId: farmReference().unique(),
 	head: integer().notNull(),
 	averageWeightLb: numeric({ mode: 'number', precision: 8, scale: 1 }).notNull(),
 	intakeLbDmPerAuDay: numeric({ mode: 'number', precision: 6, scale: 2 }).notNull(),
@@ -194,9 +191,7 @@ export const priceSets = pgTable(
 	'price_sets',
 	{
 		id: uuid().primaryKey().defaultRandom(),
-		farmId: uuid()
-			.notNull()
-			.references(() => farms.id, { onDelete: 'cascade' }),
+		farmId: farmReference(),
 		year: smallint().notNull(),
 		nitrogenUsdPerLb: numeric({ mode: 'number', precision: 10, scale: 4 }).notNull(),
 		dieselUsdPerGallon: numeric({ mode: 'number', precision: 10, scale: 4 }).notNull(),
@@ -236,9 +231,7 @@ export const fieldOperations = pgTable(
 	'field_operations',
 	{
 		id: uuid().primaryKey().defaultRandom(),
-		farmId: uuid()
-			.notNull()
-			.references(() => farms.id, { onDelete: 'cascade' }),
+		farmId: farmReference(),
 		key: text().notNull(),
 		name: text().notNull(),
 		by: operationBy().notNull(),
@@ -263,9 +256,7 @@ export const cropPractices = pgTable(
 	'crop_practices',
 	{
 		id: uuid().primaryKey().defaultRandom(),
-		farmId: uuid()
-			.notNull()
-			.references(() => farms.id, { onDelete: 'cascade' }),
+		farmId: farmReference(),
 		key: text().notNull(),
 		name: text().notNull(),
 		crop: text().$type<Crop>().notNull(),
@@ -303,9 +294,7 @@ export const rotations = pgTable(
 	'rotations',
 	{
 		id: uuid().primaryKey().defaultRandom(),
-		farmId: uuid()
-			.notNull()
-			.references(() => farms.id, { onDelete: 'cascade' }),
+		farmId: farmReference(),
 		key: text().notNull(),
 		name: text().notNull(),
 		...timestamps
@@ -334,9 +323,7 @@ export const plans = pgTable(
 	'plans',
 	{
 		id: uuid().primaryKey().defaultRandom(),
-		farmId: uuid()
-			.notNull()
-			.references(() => farms.id, { onDelete: 'cascade' }),
+		farmId: farmReference(),
 		name: text().notNull(),
 		isReference: boolean().notNull().default(false),
 		/** The newest version number; a save naming an older one is refused. */

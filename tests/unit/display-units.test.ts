@@ -1,5 +1,8 @@
 import { describe, expect, it } from 'vitest';
+import { builtInCrops } from '../../src/lib/schemas/crops';
 import { displayUnits } from '../../src/lib/server/display-units';
+
+const crop = (id: string) => builtInCrops.find((c) => c.id === id)!;
 
 const us = displayUnits('us');
 const metric = displayUnits('metric');
@@ -8,8 +11,9 @@ describe('showing stored US values in the farm’s units', () => {
 	it('leaves US customary values as they are', () => {
 		expect(us.amount(52, 'area')).toBe(52);
 		expect(us.unit('area')).toBe('ac');
-		expect(us.yieldPerArea(180, 'corn')).toEqual({ value: 180, unit: 'bu/ac' });
-		expect(us.cropPrice(4.4, 'corn')).toEqual({ value: 4.4, unit: 'bu' });
+		expect(us.yieldPerArea(180, crop('corn'))).toEqual({ value: 180, unit: 'bu/ac' });
+		expect(us.cropPrice(4.4, crop('corn'))).toEqual({ value: 4.4, unit: 'bu' });
+		expect(us.yieldPerArea(3, crop('hay'))).toEqual({ value: 3, unit: 'ton/ac' });
 	});
 
 	it('converts area, mass and speed with the NDSU metric card factors', () => {
@@ -30,12 +34,16 @@ describe('showing stored US values in the farm’s units', () => {
 
 	it('shows grain yields and prices by the crop’s bushel weight', () => {
 		// NDSU card: 1 bu/ac of 56-lb corn = 62.77 kg/ha, so 180 bu/ac = 11.30 t/ha
-		expect(metric.yieldPerArea(180, 'corn').value).toBeCloseTo(11.298, 3);
+		expect(metric.yieldPerArea(180, crop('corn')).value).toBeCloseTo(11.298, 3);
 		// 60-lb soybean: 67.25 kg/ha per bu/ac
-		expect(metric.yieldPerArea(58, 'soybean').value).toBeCloseTo(3.9, 2);
+		expect(metric.yieldPerArea(58, crop('soybean')).value).toBeCloseTo(3.9, 2);
 		// Minnesota shippers table: 1 bu corn = 0.025401 t, so $4.40/bu = $173.22/t
-		expect(metric.cropPrice(4.4, 'corn')).toEqual({ value: expect.closeTo(173.22, 2), unit: 't' });
+		expect(metric.cropPrice(4.4, crop('corn'))).toEqual({ value: expect.closeTo(173.22, 2), unit: 't' });
 		// NDSU card: 1 ton/ac = 2.2417 t/ha
-		expect(metric.yieldPerArea(3, 'oat-pea-forage').value).toBeCloseTo(6.725, 3);
+		expect(metric.yieldPerArea(3, crop('oat-pea-forage')).value).toBeCloseTo(6.725, 3);
+		// a crop of one's own sold by the hundredweight: 20 cwt/ac = 2,000 lb/ac × 1.12085 = 2,241.7 kg/ha
+		const dryBeans = { ...crop('soybean'), id: 'dry-beans', soldBy: 'cwt' as const, lbPerUnit: 100 };
+		expect(metric.yieldPerArea(20, dryBeans).value).toBeCloseTo(2.2417, 4);
+		expect(us.yieldPerArea(20, dryBeans).unit).toBe('cwt/ac');
 	});
 });

@@ -123,9 +123,20 @@ describe('partial budget', () => {
 		const budget = evaluatePlan(parse(input), reference).partialBudget!;
 		// farmdoc daily (6):126, 2016: drilling $13.10 + 30 lb × $0.25 = $7.50 → $20.60 per acre
 		expect(budget.average.perAcre.addedCostsUsd).toBeCloseTo(20.6, 9);
+		// Corn keeps its place, so each input is one net line of the corn enterprise
 		expect(budget.average.lines.addedCosts).toEqual([
-			{ item: 'Cover crop seed', amountUsd: expect.closeTo(750, 9) },
-			{ item: 'Custom hire', amountUsd: expect.closeTo(1310, 9) }
+			{
+				enterprise: 'corn',
+				category: 'custom-hire',
+				item: 'Corn: custom hire',
+				amountUsd: expect.closeTo(1310, 9)
+			},
+			{
+				enterprise: 'corn',
+				category: 'cover-seed',
+				item: 'Corn: cover crop seed',
+				amountUsd: expect.closeTo(750, 9)
+			}
 		]);
 		expect(budget.years[0].netChangeUsd).toBeCloseTo(-2060, 9);
 		expect(budget.referencePlanName).toBe('Test plan');
@@ -157,8 +168,19 @@ describe('partial budget', () => {
 		expect(referenceYear.hayCostUsd).toBeCloseTo(3000, 6);
 		expect(result.farmYears[0].hayBales).toBe(0);
 		expect(budget.years[0].lines.reducedCosts).toEqual([
-			{ item: 'Purchased hay', amountUsd: expect.closeTo(3000, 6) }
+			{
+				enterprise: 'herd',
+				category: 'hay',
+				item: 'Herd: purchased hay',
+				amountUsd: expect.closeTo(3000, 6)
+			}
 		]);
+		// The practitioner's own reckoning, per farm-year: bales and dollars avoided, per grazed acre
+		expect(result.farmYears[0].hayBalesAvoided).toBeCloseTo(60, 9);
+		expect(result.farmYears[0].hayUsdAvoided).toBeCloseTo(3000, 6);
+		expect(result.farmYears[0].grazedAcres).toBe(100);
+		expect(result.farmYears[0].hayUsdAvoidedPerGrazedAcre).toBeCloseTo(30, 8);
+		expect(referenceYear.hayUsdAvoided).toBe(0);
 		expect(budget.years[0].perAcre.reducedCostsUsd).toBeCloseTo(30, 8);
 		expect(budget.years[0].perAcre.netChangeUsd).toBeCloseTo(30, 8);
 	});
@@ -183,10 +205,12 @@ describe('partial budget', () => {
 				6
 			);
 			expect(year.addedReturnsUsd).toBeGreaterThan(0);
-			expect(year.lines.reducedCosts.map((l) => l.item)).toContain('Chemicals');
+			expect(year.lines.reducedCosts.map((l) => l.item)).toContain('Soybean: chemicals');
 		}
-		expect(budget.years[1].lines.addedCosts.map((l) => l.item)).toContain('Diesel');
-		expect(budget.years[0].lines.addedCosts.map((l) => l.item)).not.toContain('Diesel');
+		const dieselLines = (y: number) =>
+			budget.years[y].lines.addedCosts.filter((l) => l.category === 'diesel');
+		expect(dieselLines(1).map((l) => l.item).sort()).toEqual(['Corn: diesel', 'Soybean: diesel']);
+		expect(dieselLines(0)).toEqual([]);
 		const meanNet = (budget.years[0].netChangeUsd + budget.years[1].netChangeUsd) / 2;
 		expect(budget.average.netChangeUsd).toBeCloseTo(meanNet, 6);
 		expect(budget.average.perAcre.netChangeUsd).toBeCloseTo(meanNet / 200, 6);

@@ -3,7 +3,7 @@ import type { PlanDocumentInput } from '../../src/lib/schemas/plan-file';
 /** A small, valid plan document (invented test data): two fields, a corn–soybean rotation, one herd. */
 export function smallPlanInput(): PlanDocumentInput {
 	return {
-		formatVersion: 1,
+		formatVersion: 2,
 		notes: 'Test farm, invented numbers.',
 		farm: {
 			name: 'Test Farm',
@@ -32,6 +32,7 @@ export function smallPlanInput(): PlanDocumentInput {
 				id: 'plant',
 				name: 'No-till planter',
 				by: 'own',
+				statedAs: 'machine',
 				month: 5,
 				speedMph: 5,
 				widthFt: 30,
@@ -43,6 +44,7 @@ export function smallPlanInput(): PlanDocumentInput {
 				id: 'spray',
 				name: 'Sprayer',
 				by: 'own',
+				statedAs: 'machine',
 				month: 6,
 				speedMph: 8,
 				widthFt: 90,

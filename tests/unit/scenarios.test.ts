@@ -58,8 +58,9 @@ describe('the demo farm', () => {
 			expect(wide.farmYears[i].hayBales).toBeLessThan(year.hayBales);
 		}
 		const hayLine = wide.partialBudget!.average.lines.reducedCosts.find(
-			(l) => l.item === 'Purchased hay'
+			(l) => l.enterprise === 'herd' && l.category === 'hay'
 		);
+		expect(hayLine?.item).toBe('Herd: purchased hay');
 		expect(hayLine?.amountUsd).toBeGreaterThan(0);
 	});
 });

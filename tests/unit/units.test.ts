@@ -1,15 +1,15 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
+import { builtInCrops } from '../../src/lib/schemas/crops';
 import {
-	bushelsPerAcreToKgPerHa,
-	bushelsToTonnes,
-	bushelWeightLb,
-	kgPerHaToBushelsPerAcre,
+	kgPerHaToSaleUnitsPerAcre,
 	quantityUnits,
+	saleUnitsPerAcreToKgPerHa,
+	saleUnitsToTonnes,
 	squareFeetPerAcre,
 	toMetric,
 	toUs,
-	tonnesToBushels,
+	tonnesToSaleUnits,
 	hectaresPerAcre,
 	kgPerHaPerLbPerAcre,
 	litresPerGallon,
@@ -20,10 +20,14 @@ import {
 	type Quantity
 } from '../../src/lib/engine/units';
 
+const lbPerBushel = new Map(builtInCrops.map((c) => [c.id, c.lbPerUnit]));
+const bushel = (crop: string) => lbPerBushel.get(crop)!;
+
 describe('bushels by crop weight', () => {
-	it('uses the legal bushel weights', () => {
+	it('uses the legal bushel weights for the built-in grains', () => {
 		// Univ. of Missouri G4020 / FCIC-25010: corn 56, soybean 60, wheat 60, oats 32, barley 48, rye 56 lb/bu
-		expect(bushelWeightLb).toEqual({
+		const grains = builtInCrops.filter((c) => c.soldBy === 'bu');
+		expect(Object.fromEntries(grains.map((c) => [c.id, c.lbPerUnit]))).toEqual({
 			corn: 56,
 			soybean: 60,
 			wheat: 60,
@@ -35,21 +39,23 @@ describe('bushels by crop weight', () => {
 
 	it('converts bushels to tonnes', () => {
 		// Minnesota shippers conversion table: 1 bu corn = 0.025401 t; soybean/wheat 0.027216; barley 0.021772
-		expect(bushelsToTonnes(1, 'corn')).toBeCloseTo(0.025401, 6);
-		expect(bushelsToTonnes(1, 'soybean')).toBeCloseTo(0.027216, 6);
-		expect(bushelsToTonnes(1, 'wheat')).toBeCloseTo(0.027216, 6);
-		expect(bushelsToTonnes(1, 'barley')).toBeCloseTo(0.021772, 6);
-		expect(tonnesToBushels(0.025401, 'corn')).toBeCloseTo(1, 4);
+		expect(saleUnitsToTonnes(1, bushel('corn'))).toBeCloseTo(0.025401, 6);
+		expect(saleUnitsToTonnes(1, bushel('soybean'))).toBeCloseTo(0.027216, 6);
+		expect(saleUnitsToTonnes(1, bushel('wheat'))).toBeCloseTo(0.027216, 6);
+		expect(saleUnitsToTonnes(1, bushel('barley'))).toBeCloseTo(0.021772, 6);
+		expect(tonnesToSaleUnits(0.025401, bushel('corn'))).toBeCloseTo(1, 4);
+		// a hundredweight is 100 lb: 1 cwt = 0.0453592 t (NIST Handbook 44: 1 lb = 0.45359237 kg)
+		expect(saleUnitsToTonnes(1, 100)).toBeCloseTo(0.0453592, 7);
 	});
 
 	it('converts bu/ac to kg/ha', () => {
 		// NDSU ProCrop metric card: 60-lb bu/ac × 67.25; 48-lb 53.80; 32-lb 35.87 kg/ha
-		expect(bushelsPerAcreToKgPerHa(1, 'soybean')).toBeCloseTo(67.25, 2);
-		expect(bushelsPerAcreToKgPerHa(1, 'barley')).toBeCloseTo(53.8, 2);
-		expect(bushelsPerAcreToKgPerHa(1, 'oats')).toBeCloseTo(35.87, 2);
+		expect(saleUnitsPerAcreToKgPerHa(1, bushel('soybean'))).toBeCloseTo(67.25, 2);
+		expect(saleUnitsPerAcreToKgPerHa(1, bushel('barley'))).toBeCloseTo(53.8, 2);
+		expect(saleUnitsPerAcreToKgPerHa(1, bushel('oats'))).toBeCloseTo(35.87, 2);
 		// NDSU card prints 62.723 for 56-lb bushels (a misprint); exact 62.768, Minnesota shippers 0.06277 t/ha
-		expect(bushelsPerAcreToKgPerHa(1, 'corn')).toBeCloseTo(62.77, 2);
-		expect(kgPerHaToBushelsPerAcre(62.768, 'corn')).toBeCloseTo(1, 4);
+		expect(saleUnitsPerAcreToKgPerHa(1, bushel('corn'))).toBeCloseTo(62.77, 2);
+		expect(kgPerHaToSaleUnitsPerAcre(62.768, bushel('corn'))).toBeCloseTo(1, 4);
 	});
 });
 
@@ -86,13 +92,12 @@ describe('metric conversions', () => {
 	it('round-trips bushels per acre through kg/ha', () => {
 		fc.assert(
 			fc.property(
-				fc.constantFrom('corn', 'soybean', 'wheat', 'oats', 'barley', 'rye' as const),
+				fc.constantFrom(...builtInCrops.map((c) => c.lbPerUnit)),
 				fc.double({ min: 0, max: 20000, noNaN: true }),
-				(crop, kgPerHa) => {
-					expect(bushelsPerAcreToKgPerHa(kgPerHaToBushelsPerAcre(kgPerHa, crop), crop)).toBeCloseTo(
-						kgPerHa,
-						8
-					);
+				(lbPerUnit, kgPerHa) => {
+					expect(
+						saleUnitsPerAcreToKgPerHa(kgPerHaToSaleUnitsPerAcre(kgPerHa, lbPerUnit), lbPerUnit)
+					).toBeCloseTo(kgPerHa, 8);
 				}
 			)
 		);

@@ -1,6 +1,7 @@
-import type { Herd, PriceSet } from '../schemas/plan-file';
+import type { Herd } from '../schemas/plan-file';
 import { feedingYear, type FeedingYear } from './forage';
 import type { FieldYearResult } from './field-year';
+import type { YearPrices } from './prices';
 
 /** The herd's year (demand, grazing, hay, chores) comes from the forage ledger as it is. */
 export interface FarmYearResult extends FeedingYear {
@@ -9,6 +10,11 @@ export interface FarmYearResult extends FeedingYear {
 	revenueUsd: number;
 	fieldCostsUsd: number;
 	hayCostUsd: number;
+	/** What the hay grazing saved would have cost: bales avoided × the year's hay price. */
+	hayUsdAvoided: number;
+	/** Acres the herd grazed: fields offering forage, in a year the herd grazed at all. */
+	grazedAcres: number;
+	hayUsdAvoidedPerGrazedAcre: number;
 	choreLabourUsd: number;
 	fixedCostsUsd: number;
 	costsUsd: number;
@@ -31,7 +37,7 @@ export function evaluateFarmYear(
 	year: number,
 	fieldYears: FieldYearResult[],
 	herd: Herd | null,
-	prices: PriceSet,
+	prices: YearPrices,
 	farm: { labourHoursAvailableByMonth: number[]; fixedCostsUsdPerYear: number }
 ): FarmYearResult {
 	const { labourHoursAvailableByMonth, fixedCostsUsdPerYear: fixedCostsUsd } = farm;
@@ -44,6 +50,7 @@ export function evaluateFarmYear(
 	let machineHours = 0;
 	let fieldLabourHours = 0;
 	let grazingAuDaysOffered = 0;
+	let acresOffering = 0;
 	const labourHoursByMonth = new Array<number>(12).fill(0);
 	for (const fy of fieldYears) {
 		acres += fy.acres;
@@ -55,6 +62,7 @@ export function evaluateFarmYear(
 		machineHours += fy.machineHours;
 		fieldLabourHours += fy.labourHours;
 		grazingAuDaysOffered += fy.forage.grazingAuDays;
+		if (fy.forage.grazingAuDays > 0) acresOffering += fy.acres;
 		for (let m = 0; m < 12; m++) labourHoursByMonth[m] += fy.labourHoursByMonth[m];
 	}
 
@@ -63,6 +71,8 @@ export function evaluateFarmYear(
 	if (feeding) for (let m = 0; m < 12; m++) labourHoursByMonth[m] += feeding.choreHoursByMonth[m];
 	const hayBales = feeding?.hayBales ?? 0;
 	const hayCostUsd = hayBales * prices.hayUsdPerBale;
+	const hayUsdAvoided = (feeding?.hayBalesAvoided ?? 0) * prices.hayUsdPerBale;
+	const grazedAcres = (feeding?.grazingAuDays ?? 0) > 0 ? acresOffering : 0;
 	const choreLabourUsd = choreHours * prices.labourUsdPerHour;
 	const costsUsd = fieldCostsUsd + hayCostUsd + choreLabourUsd + fixedCostsUsd;
 	const netReturnUsd = revenueUsd - costsUsd;
@@ -74,6 +84,9 @@ export function evaluateFarmYear(
 		revenueUsd,
 		fieldCostsUsd,
 		hayCostUsd,
+		hayUsdAvoided,
+		grazedAcres,
+		hayUsdAvoidedPerGrazedAcre: grazedAcres > 0 ? hayUsdAvoided / grazedAcres : 0,
 		choreLabourUsd,
 		fixedCostsUsd,
 		costsUsd,
@@ -100,6 +113,7 @@ export function evaluateFarmYear(
 		grazingDays: feeding?.grazingDays ?? 0,
 		hayFeedingDays: feeding?.hayFeedingDays ?? 0,
 		hayDmLb: feeding?.hayDmLb ?? 0,
-		hayBales
+		hayBales,
+		hayBalesAvoided: feeding?.hayBalesAvoided ?? 0
 	};
 }

@@ -1,22 +1,29 @@
-import {
-	isGrain,
-	type CropPractice,
-	type FieldOperation,
-	type Herd,
-	type PlanDocument,
-	type PriceSet
+import type { SaleUnit } from '../schemas/crops';
+import type {
+	CropDefinition,
+	CropPractice,
+	FieldOperation,
+	Herd,
+	PlanDocument
 } from '../schemas/plan-file';
 import { animalUnitDaysFromDm, coverGrazedLbDmPerAcre, residueGrazedLbDmPerAcre } from './forage';
-import { customOperationTotals, ownOperationTotals, type OperationTotals } from './machinery';
+import {
+	customOperationTotals,
+	ownOperationTotals,
+	perAcreOperationTotals,
+	type OperationTotals
+} from './machinery';
 import {
 	economicOptimumNLbPerAcre,
 	grazingManureCreditLbPerAcre,
 	legumeCoverCreditLbPerAcre,
 	nitrogenPriceRatio,
+	plateauJoinLbN,
 	plateauYieldBuPerAcre,
 	responseYieldBuPerAcre
 } from './nitrogen';
-import { daysPerAnimalUnitMonth, inchesPerFoot, squareFeetPerAcre, yieldUnit } from './units';
+import type { YearPrices } from './prices';
+import { daysPerAnimalUnitMonth, inchesPerFoot, squareFeetPerAcre } from './units';
 
 export type Field = PlanDocument['fields'][number];
 
@@ -31,7 +38,10 @@ export interface OperationResult extends OperationTotals {
 export interface NitrogenLedger {
 	/** Price ratio ($/lb N ÷ $/bu) of the year, when the practice has a response curve. */
 	priceRatio: number | null;
+	/** Where the last pound of N pays for itself on the field's own (scaled) yield curve. */
 	economicOptimumLbPerAcre: number | null;
+	/** Where the curve levels off: more N adds no yield (b ÷ 2c). */
+	agronomicMaximumLbPerAcre: number | null;
 	/** N the crop should have available: the economic optimum, or the applied rate without a curve. */
 	needLbPerAcre: number;
 	priorCropCreditLbPerAcre: number;
@@ -48,8 +58,11 @@ export interface ForageOffered {
 	coverLbDmPerAcre: number;
 	residueLbDmPerAcre: number;
 	offeredLbDm: number;
+	/** AU-days of grazing the field offers. */
 	grazingAuDays: number;
 	grazingAums: number;
+	/** AU-days the herd ate here: its grazing shared out in proportion to what each field offered. */
+	eatenAuDays: number;
 }
 
 export interface FieldYearResult {
@@ -59,9 +72,10 @@ export interface FieldYearResult {
 	rotationId: string;
 	practiceId: string;
 	practiceName: string;
-	crop: CropPractice['crop'];
+	crop: string;
+	cropName: string;
 	acres: number;
-	yieldUnit: 'bu' | 'ton';
+	yieldUnit: SaleUnit;
 	yieldPerAcre: number;
 	production: number;
 	priceUsdPerUnit: number;
@@ -104,7 +118,8 @@ export interface FieldYearInput {
 	year: number;
 	rotationId: string;
 	practice: CropPractice;
-	prices: PriceSet;
+	crop: CropDefinition;
+	prices: YearPrices;
 	herd: Herd | null;
 	operationsById: Map<string, FieldOperation>;
 	interestRatePercent: number;
@@ -117,14 +132,29 @@ export function seedsPerFootOfRow(seedsPerAcre: number, rowSpacingIn: number): n
 	return seedsPerAcre / rowFeetPerAcre;
 }
 
+/** Yield goal × productivity × the practice's own adjustment: the yield at the curve's plateau. */
+function plateauYieldPerAcre(field: Field, practice: CropPractice): number {
+	return (
+		practice.yieldGoalPerAcre *
+		field.productivityIndex *
+		(1 + practice.yieldAdjustmentPercent / 100)
+	);
+}
+
 function nitrogenLedger(input: FieldYearInput, cropPrice: number): NitrogenLedger {
 	const { practice, prices, field, credits } = input;
 	const response = practice.nitrogen.response;
 	const creditLbPerAcre =
 		credits.priorCropCreditLbPerAcre + credits.coverCreditLbPerAcre + credits.manureCreditLbPerAcre;
 	const priceRatio = response ? nitrogenPriceRatio(prices.nitrogenUsdPerLb, cropPrice) : null;
+	// The field's bushels per bushel of the curve: the price ratio is met on the curve the yield follows.
+	const yieldScale = response
+		? plateauYieldPerAcre(field, practice) / plateauYieldBuPerAcre(response)
+		: 1;
 	const optimum =
-		response && priceRatio !== null ? economicOptimumNLbPerAcre(response, priceRatio) : null;
+		response && priceRatio !== null
+			? economicOptimumNLbPerAcre(response, priceRatio, yieldScale)
+			: null;
 	const stated = practice.nitrogen.appliedLbPerAcre;
 	const applied =
 		stated === 'economic-optimum' ? Math.max((optimum ?? 0) - creditLbPerAcre, 0) : stated;
@@ -132,6 +162,7 @@ function nitrogenLedger(input: FieldYearInput, cropPrice: number): NitrogenLedge
 	return {
 		priceRatio,
 		economicOptimumLbPerAcre: optimum,
+		agronomicMaximumLbPerAcre: response ? plateauJoinLbN(response) : null,
 		needLbPerAcre: optimum ?? applied,
 		...credits,
 		appliedLbPerAcre: applied,
@@ -149,14 +180,21 @@ function operationResults(input: FieldYearInput): OperationResult[] {
 		const operation = operationsById.get(step.operationId)!;
 		const acresCovered = field.acres * step.passes;
 		const totals =
-			operation.by === 'own'
-				? ownOperationTotals(
-						operation,
-						acresCovered,
-						prices.dieselUsdPerGallon,
-						prices.labourUsdPerHour
-					)
-				: customOperationTotals(acresCovered, prices.customRatesUsdPerAcre[operation.id]);
+			operation.by === 'custom'
+				? customOperationTotals(acresCovered, prices.customRatesUsdPerAcre.get(operation.id) ?? 0)
+				: operation.statedAs === 'machine'
+					? ownOperationTotals(
+							operation,
+							acresCovered,
+							prices.dieselUsdPerGallon,
+							prices.labourUsdPerHour
+						)
+					: perAcreOperationTotals(
+							operation,
+							acresCovered,
+							prices.dieselUsdPerGallon,
+							prices.labourUsdPerHour
+						);
 		return {
 			operationId: operation.id,
 			name: operation.name,
@@ -168,27 +206,23 @@ function operationResults(input: FieldYearInput): OperationResult[] {
 	});
 }
 
-function seedUsdPerAcre(practice: CropPractice, prices: PriceSet): number {
+function seedUsdPerAcre(practice: CropPractice, prices: YearPrices): number {
 	const seed = practice.seed;
 	if (!seed) return 0;
-	const price = prices.seedPrices[seed.seedId];
+	const price = prices.seedPrices.get(seed.seedId);
 	return seed.seedsPerAcre !== undefined
-		? (seed.seedsPerAcre / 1000) * (price.usdPerThousandSeeds ?? 0)
-		: (seed.lbPerAcre ?? 0) * (price.usdPerLb ?? 0);
+		? (seed.seedsPerAcre / 1000) * (price?.usdPerThousandSeeds ?? 0)
+		: (seed.lbPerAcre ?? 0) * (price?.usdPerLb ?? 0);
 }
 
 /** One crop practice on one field in one year: yield, revenue, costs, hours, diesel, N and forage. */
 export function evaluateFieldYear(input: FieldYearInput): FieldYearResult {
-	const { field, practice, prices, herd } = input;
+	const { field, practice, crop, prices, herd } = input;
 	const acres = field.acres;
-	const cropPrice = prices.cropPricesUsdPerUnit[practice.crop] ?? 0;
+	const cropPrice = prices.cropUsdPerUnit.get(crop.id) ?? 0;
 
 	const nitrogen = nitrogenLedger(input, cropPrice);
-	const yieldPerAcre =
-		practice.yieldGoalPerAcre *
-		field.productivityIndex *
-		nitrogen.responseFactor *
-		(1 + practice.yieldAdjustmentPercent / 100);
+	const yieldPerAcre = plateauYieldPerAcre(field, practice) * nitrogen.responseFactor;
 	const production = yieldPerAcre * acres;
 	const revenueUsd = production * cropPrice;
 
@@ -222,7 +256,7 @@ export function evaluateFieldYear(input: FieldYearInput): FieldYearResult {
 	const cover = practice.coverMix;
 	const coverSeedUsd = cover
 		? cover.species.reduce(
-				(sum, s) => sum + s.lbPerAcre * (prices.seedPrices[s.seedId].usdPerLb ?? 0),
+				(sum, s) => sum + s.lbPerAcre * (prices.seedPrices.get(s.seedId)?.usdPerLb ?? 0),
 				0
 			) * acres
 		: 0;
@@ -251,10 +285,10 @@ export function evaluateFieldYear(input: FieldYearInput): FieldYearResult {
 			: 0;
 	const residue = practice.residueGrazing;
 	const residueLbDmPerAcre =
-		grazed && residue && isGrain(practice.crop)
+		grazed && residue
 			? residueGrazedLbDmPerAcre(
 					yieldPerAcre,
-					residue.leafHuskLbDmPerBu,
+					residue.leafHuskLbDmPerUnit,
 					residue.utilisationPercent
 				)
 			: 0;
@@ -271,9 +305,10 @@ export function evaluateFieldYear(input: FieldYearInput): FieldYearResult {
 		rotationId: input.rotationId,
 		practiceId: practice.id,
 		practiceName: practice.name,
-		crop: practice.crop,
+		crop: crop.id,
+		cropName: crop.name,
 		acres,
-		yieldUnit: yieldUnit(practice.crop),
+		yieldUnit: crop.soldBy,
 		yieldPerAcre,
 		production,
 		priceUsdPerUnit: cropPrice,
@@ -309,19 +344,36 @@ export function evaluateFieldYear(input: FieldYearInput): FieldYearResult {
 			residueLbDmPerAcre,
 			offeredLbDm,
 			grazingAuDays,
-			grazingAums: grazingAuDays / daysPerAnimalUnitMonth
+			grazingAums: grazingAuDays / daysPerAnimalUnitMonth,
+			// Known once the farm-year has fed the herd: see `shareOutGrazing`.
+			eatenAuDays: 0
 		}
 	};
 }
 
-/** The N credits this field-year leaves for the next crop on the same field. */
+/**
+ * The herd's grazing shared out over the fields in proportion to what each offered: when the fields
+ * offer more than the herd eats, each field is grazed by the same share of its offer.
+ */
+export function shareOutGrazing(fieldYears: FieldYearResult[], grazingAuDaysEaten: number) {
+	const offered = fieldYears.reduce((sum, fy) => sum + fy.forage.grazingAuDays, 0);
+	const eatenShare = offered > 0 ? Math.min(grazingAuDaysEaten / offered, 1) : 0;
+	for (const fy of fieldYears) fy.forage.eatenAuDays = fy.forage.grazingAuDays * eatenShare;
+	return eatenShare;
+}
+
+/**
+ * The N credits this field-year leaves for the next crop on the same field. Manure follows what was
+ * eaten on the field; of a legume cover, the share the herd ate is not left to decay in the field.
+ */
 export function creditsForNextYear(
 	practice: CropPractice,
 	result: FieldYearResult,
-	herd: Herd | null
+	herd: Herd | null,
+	eatenShare: number
 ): CarriedCredits {
 	const cover = practice.coverMix;
-	const grazedPercent = herd && cover ? cover.grazingUtilisationPercent : 0;
+	const grazedPercent = herd && cover ? cover.grazingUtilisationPercent * eatenShare : 0;
 	return {
 		priorCropCreditLbPerAcre: practice.nitrogenCreditToNextCropLbPerAcre,
 		coverCreditLbPerAcre: cover
@@ -335,7 +387,7 @@ export function creditsForNextYear(
 			: 0,
 		manureCreditLbPerAcre: herd
 			? grazingManureCreditLbPerAcre(
-					result.forage.grazingAuDays / result.acres,
+					result.forage.eatenAuDays / result.acres,
 					herd.manureNitrogenLbPerAuDay,
 					herd.manureNitrogenAvailablePercent
 				)

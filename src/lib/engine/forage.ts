@@ -30,13 +30,16 @@ export function coverGrazedLbDmPerAcre(
 	return biomassLbDmPerAcre * (utilisationPercent / 100);
 }
 
-/** Hay to buy, as fed: dry matter ÷ dry-matter share, plus what is wasted at feeding. */
+/**
+ * Hay to buy, as fed. Feeding waste is the share of the hay put out that cattle do not eat (Oklahoma
+ * State, Lalman: waste as a share of the bale), so what is put out is what is eaten ÷ (1 − waste).
+ */
 export function hayAsFedLb(
 	dmLb: number,
 	dryMatterPercent: number,
 	feedingWastePercent: number
 ): number {
-	return (dmLb / (dryMatterPercent / 100)) * (1 + feedingWastePercent / 100);
+	return dmLb / (dryMatterPercent / 100) / (1 - feedingWastePercent / 100);
 }
 
 export function hayBales(
@@ -71,6 +74,8 @@ export interface FeedingYear {
 	hayFeedingDays: number;
 	hayDmLb: number;
 	hayBales: number;
+	/** Bales the herd would have eaten on the days it grazed instead: the hay grazing saved. */
+	hayBalesAvoided: number;
 	choreHours: number;
 	choreHoursByMonth: number[];
 }
@@ -139,6 +144,12 @@ export function feedingYear(herd: HerdForFeeding, grazingAuDaysOffered: number):
 		hayDmLb,
 		hayBales: hayBales(
 			hayDmLb,
+			herd.baleWeightLb,
+			herd.baleDryMatterPercent,
+			herd.feedingWastePercent
+		),
+		hayBalesAvoided: hayBales(
+			grazingAuDays * herd.intakeLbDmPerAuDay,
 			herd.baleWeightLb,
 			herd.baleDryMatterPercent,
 			herd.feedingWastePercent

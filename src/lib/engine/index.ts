@@ -1,25 +1,29 @@
 import type { FieldIssue } from '../schemas/issues';
 import type { PlanDocument } from '../schemas/plan-file';
+import type { UnitSystem } from '../unit-systems';
 import { evaluateFarmYear, type FarmYearResult } from './farm-year';
 import {
 	creditsForNextYear,
 	evaluateFieldYear,
+	shareOutGrazing,
 	type CarriedCredits,
 	type FieldYearResult
 } from './field-year';
-import { partialBudget, yearItems, type PartialBudget } from './partial-budget';
+import { nonFiniteNumberPaths } from './finite';
+import { partialBudget, yearItems, type PartialBudget, type YearItems } from './partial-budget';
+import { yearPrices } from './prices';
 
 export type { FarmYearResult } from './farm-year';
 export type { FieldYearResult, NitrogenLedger, OperationResult } from './field-year';
 export type { BudgetLine, BudgetParts, PartialBudget, PartialBudgetYear } from './partial-budget';
 
 export interface PlanResult {
-	formatVersion: 1;
+	formatVersion: 2;
 	plan: {
 		name: string;
 		farmName: string;
 		region: string;
-		unitSystem: 'us' | 'metric';
+		unitSystem: UnitSystem;
 		startYear: number;
 		years: number;
 		acres: number;
@@ -40,6 +44,7 @@ function evaluateYears(plan: PlanDocument) {
 	const practiceById = new Map(plan.practices.map((p) => [p.id, p]));
 	const rotationById = new Map(plan.rotations.map((r) => [r.id, r]));
 	const operationsById = new Map(plan.operations.map((o) => [o.id, o]));
+	const cropById = new Map(plan.crops.map((c) => [c.id, c]));
 	const priceSetByYear = new Map(plan.priceSets.map((p) => [p.year, p]));
 	const assignmentByField = new Map(plan.plan.fieldRotations.map((a) => [a.fieldId, a]));
 	const credits = new Map<string, CarriedCredits>(
@@ -55,10 +60,11 @@ function evaluateYears(plan: PlanDocument) {
 
 	const fieldYears: FieldYearResult[] = [];
 	const farmYears: FarmYearResult[] = [];
-	const items = [];
+	const items: { year: number; items: YearItems }[] = [];
 	for (const [i, year] of planYears(plan).entries()) {
-		const prices = priceSetByYear.get(year)!;
+		const prices = yearPrices(priceSetByYear.get(year)!);
 		const thisYear: FieldYearResult[] = [];
+		const practices: PlanDocument['practices'] = [];
 		for (const field of plan.fields) {
 			const assignment = assignmentByField.get(field.id)!;
 			const rotation = rotationById.get(assignment.rotationId)!;
@@ -69,16 +75,22 @@ function evaluateYears(plan: PlanDocument) {
 				year,
 				rotationId: rotation.id,
 				practice,
+				crop: cropById.get(practice.crop)!,
 				prices,
 				herd: plan.herd,
 				operationsById,
 				interestRatePercent: plan.farm.interestRatePercent,
 				credits: credits.get(field.id)!
 			});
-			credits.set(field.id, creditsForNextYear(practice, result, plan.herd));
 			thisYear.push(result);
+			practices.push(practice);
 		}
 		const farmYear = evaluateFarmYear(year, thisYear, plan.herd, prices, plan.farm);
+		// Credits follow what the herd ate, known only once the farm-year has fed it.
+		const eatenShare = shareOutGrazing(thisYear, farmYear.grazingAuDays);
+		thisYear.forEach((result, f) => {
+			credits.set(result.fieldId, creditsForNextYear(practices[f], result, plan.herd, eatenShare));
+		});
 		fieldYears.push(...thisYear);
 		farmYears.push(farmYear);
 		items.push({ year, items: yearItems(thisYear, farmYear) });
@@ -97,15 +109,23 @@ export function referenceHorizonIssues(plan: PlanDocument, reference: PlanDocume
 		}));
 }
 
+/** A result that would hold a number that is not finite: refused, naming where. */
+export class NonFiniteResultError extends Error {
+	constructor(readonly issues: FieldIssue[]) {
+		super(issues.map((i) => `${i.path}: ${i.message}`).join('; '));
+	}
+}
+
 /**
  * Evaluates a validated plan document: every field-year, every farm-year and, given a reference plan
- * covering the same years, the partial budget of the plan against it.
+ * covering the same years, the partial budget of the plan against it. Throws `NonFiniteResultError`
+ * rather than answer a number that is not finite.
  */
 export function evaluatePlan(plan: PlanDocument, reference?: PlanDocument): PlanResult {
 	const { fieldYears, farmYears, items } = evaluateYears(plan);
 	const acres = plan.fields.reduce((sum, f) => sum + f.acres, 0);
 	const result: PlanResult = {
-		formatVersion: 1,
+		formatVersion: 2,
 		plan: {
 			name: plan.plan.name,
 			farmName: plan.farm.name,
@@ -125,6 +145,15 @@ export function evaluatePlan(plan: PlanDocument, reference?: PlanDocument): Plan
 		if (mismatch.length) throw new Error(mismatch.map((m) => m.message).join('; '));
 		const referenceItems = new Map(evaluateYears(reference).items.map((y) => [y.year, y.items]));
 		result.partialBudget = partialBudget(reference.plan.name, acres, items, referenceItems);
+	}
+	const bad = nonFiniteNumberPaths(result);
+	if (bad.length) {
+		throw new NonFiniteResultError(
+			bad.map((path) => ({
+				path: `result.${path}`,
+				message: 'The inputs give a number too large to work with: check the values it comes from.'
+			}))
+		);
 	}
 	return result;
 }

@@ -75,6 +75,37 @@ export function ownOperationTotals(
 	};
 }
 
+export interface OwnPerAcreRates {
+	dieselGallonsPerAcre: number;
+	machineHoursPerAcre: number;
+	labourHoursPerAcre: number;
+	repairsUsdPerAcre: number;
+}
+
+/**
+ * An own operation stated by published per-acre rates (fuel tables such as Univ. of Missouri G1208
+ * give gal/ac directly): each total is the rate × acres covered, with no capacity or hours derived.
+ */
+export function perAcreOperationTotals(
+	rates: OwnPerAcreRates,
+	acresCovered: number,
+	dieselUsdPerGallon: number,
+	labourUsdPerHour: number
+): OperationTotals {
+	const dieselGallons = rates.dieselGallonsPerAcre * acresCovered;
+	const labourHours = rates.labourHoursPerAcre * acresCovered;
+	return {
+		fieldCapacityAcresPerHour: null,
+		machineHours: rates.machineHoursPerAcre * acresCovered,
+		labourHours,
+		dieselGallons,
+		fuelUsd: dieselGallons * dieselUsdPerGallon,
+		repairsUsd: rates.repairsUsdPerAcre * acresCovered,
+		labourUsd: labourHours * labourUsdPerHour,
+		customHireUsd: 0
+	};
+}
+
 /** A hired operation costs the custom rate per acre; the operator's own hours and fuel are not the farm's. */
 export function customOperationTotals(
 	acresCovered: number,

@@ -35,11 +35,20 @@ export function nitrogenPriceRatio(nitrogenUsdPerLb: number, grainUsdPerBu: numb
 }
 
 /**
- * Economic optimum N rate: where the last pound of N pays for itself, dY/dN = price ratio, so
- * EONR = (b − R) / (2c) (Fausti et al. 2017), never above the plateau join nor below zero.
+ * Economic optimum N rate: where the last pound of N pays for itself, dY/dN = price ratio. On the curve
+ * itself that is EONR = (b − R) / (2c) (Fausti et al. 2017). The field's yield is the curve scaled by
+ * `yieldScale` (the yield goal × productivity × adjustment per bushel of the curve's plateau), so its
+ * slope is yieldScale × (b − 2cN) and EONR = (b − R / yieldScale) / (2c); never above the plateau join
+ * (the agronomic maximum) nor below zero.
  */
-export function economicOptimumNLbPerAcre(response: QuadraticPlateau, priceRatio: number): number {
-	const optimum = (response.linearBuPerLbN - priceRatio) / (2 * response.quadraticBuPerLbN2);
+export function economicOptimumNLbPerAcre(
+	response: QuadraticPlateau,
+	priceRatio: number,
+	yieldScale = 1
+): number {
+	if (!(yieldScale > 0)) return 0;
+	const optimum =
+		(response.linearBuPerLbN - priceRatio / yieldScale) / (2 * response.quadraticBuPerLbN2);
 	return Math.min(Math.max(optimum, 0), plateauJoinLbN(response));
 }
 

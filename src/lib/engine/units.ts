@@ -1,5 +1,4 @@
-import { all, create } from 'mathjs';
-import type { Crop, GrainCrop } from '../schemas/plan-file';
+import { create, createUnitDependencies, unitDependencies } from 'mathjs';
 
 /**
  * The one place for unit conversion. The engine works in US customary units; metric is for display
@@ -7,7 +6,8 @@ import type { Crop, GrainCrop } from '../schemas/plan-file';
  * multiply.
  */
 
-const math = create(all);
+// Only the unit functions: the full bundle costs far more to load than these few fixed factors need.
+const math = create({ unitDependencies, createUnitDependencies });
 // mathjs's built-in `acre` is rounded to 4046.86 m²; the acre is exactly 43,560 ft² (NDSU metric card).
 math.createUnit('acreExact', '43560 ft^2');
 
@@ -34,35 +34,25 @@ export const daysPerAnimalUnitMonth = 30;
 /** Animal units are counted per 1,000 lb of live weight (Society for Range Management glossary). */
 export const lbLiveWeightPerAnimalUnit = 1000;
 
-// Univ. of Missouri G4020 and FCIC-25010: legal bushel weights, lb per bushel.
-export const bushelWeightLb: Record<GrainCrop, number> = {
-	corn: 56,
-	soybean: 60,
-	wheat: 60,
-	oats: 32,
-	barley: 48,
-	rye: 56
-};
-
-/** How a crop is sold: grains by the bushel, forages by the (short) ton as fed. */
-export function yieldUnit(crop: Crop): 'bu' | 'ton' {
-	return crop in bushelWeightLb ? 'bu' : 'ton';
+/**
+ * Sale units by weight: a yield or price per sale unit in metric tonnes, given the pounds in one unit
+ * (a bushel's weight is the crop's own: see `schemas/crops.ts`).
+ */
+export function saleUnitsToTonnes(units: number, lbPerUnit: number): number {
+	return (units * lbPerUnit * kgPerLb) / 1000;
 }
 
-export function bushelsToTonnes(bushels: number, crop: GrainCrop): number {
-	return (bushels * bushelWeightLb[crop] * kgPerLb) / 1000;
+export function tonnesToSaleUnits(tonnes: number, lbPerUnit: number): number {
+	return (tonnes * 1000) / (lbPerUnit * kgPerLb);
 }
 
-export function tonnesToBushels(tonnes: number, crop: GrainCrop): number {
-	return (tonnes * 1000) / (bushelWeightLb[crop] * kgPerLb);
+/** Sale units per acre (bu/ac, cwt/ac, ton/ac, lb/ac) as kg/ha. */
+export function saleUnitsPerAcreToKgPerHa(unitsPerAcre: number, lbPerUnit: number): number {
+	return unitsPerAcre * lbPerUnit * kgPerHaPerLbPerAcre;
 }
 
-export function bushelsPerAcreToKgPerHa(buPerAcre: number, crop: GrainCrop): number {
-	return buPerAcre * bushelWeightLb[crop] * kgPerHaPerLbPerAcre;
-}
-
-export function kgPerHaToBushelsPerAcre(kgPerHa: number, crop: GrainCrop): number {
-	return kgPerHa / (bushelWeightLb[crop] * kgPerHaPerLbPerAcre);
+export function kgPerHaToSaleUnitsPerAcre(kgPerHa: number, lbPerUnit: number): number {
+	return kgPerHa / (lbPerUnit * kgPerHaPerLbPerAcre);
 }
 
 /** Quantities the app shows in either system, with their US and metric units. */

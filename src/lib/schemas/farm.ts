@@ -1,34 +1,26 @@
 import { z } from 'zod';
-
-const number = (label: string) => z.number({ error: `Enter ${label} as a number.` });
+import { unitSystemLabels, unitSystems } from '../unit-systems';
+import { amount, choice, list, text } from './messages';
 
 /** A farm's own settings: the same shape in the farm form, the API and the plan file's `farm`. */
 export const farmSchema = z.strictObject({
-	name: z
-		.string({ error: 'Enter the farm name.' })
-		.trim()
-		.min(1, { error: 'Enter the farm name.' })
-		.max(120, { error: 'Use at most 120 characters.' }),
-	region: z.string().trim().max(120, { error: 'Use at most 120 characters.' }).default(''),
-	unitSystem: z
-		.enum(['us', 'metric'], { error: 'Choose US customary or metric units.' })
-		.default('us'),
-	labourHoursAvailableByMonth: z
-		.array(
-			number('hours')
-				.min(0, { error: 'Hours cannot be negative.' })
-				// 31 days × 24 h: more than that is a typing slip.
-				.max(744, { error: 'A month has at most 744 hours.' }),
-			{ error: 'Give labour hours for each month, January to December.' }
-		)
-		.length(12, { error: 'Give labour hours for all 12 months, January to December.' }),
-	interestRatePercent: number('the rate')
-		.min(0, { error: 'The rate cannot be negative.' })
-		// A bound that catches slips such as 650 typed for 6.50, not a judgement of any loan.
-		.max(50, { error: 'Enter a rate of at most 50 %.' })
-		.describe('Annual rate charged on operating costs for the months they are carried.'),
-	fixedCostsUsdPerYear: number('fixed costs')
-		.min(0, { error: 'Fixed costs cannot be negative.' })
+	name: text('the farm name', { max: 120, required: true }),
+	region: text('the region', { max: 120 }).default(''),
+	unitSystem: choice('the unit system', unitSystems)
+		.default('us')
+		.describe(Object.values(unitSystemLabels).join(' or ')),
+	labourHoursAvailableByMonth: list(
+		// 31 days × 24 h: more than that is a typing slip.
+		'labour hours for each month',
+		amount('labour hours in a month', { min: 0, max: 744, unit: 'hours' }),
+		{ max: 12 }
+	).length(12, { error: 'Give labour hours for all 12 months, January to December.' }),
+	// A bound that catches slips such as 650 typed for 6.50, not a judgement of any loan.
+	interestRatePercent: amount('the rate', { min: 0, max: 50, unit: '%' }).describe(
+		'Annual rate charged on operating costs for the months they are carried.'
+	),
+	// A bound well above any family farm's overhead that keeps the money columns exact.
+	fixedCostsUsdPerYear: amount('fixed costs', { min: 0, max: 100_000_000, usdPer: 'year' })
 		.default(0)
 		.describe(
 			'Land, machinery and building ownership, insurance, overhead: costs the plan does not change.'

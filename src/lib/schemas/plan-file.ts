@@ -1,189 +1,261 @@
 import { z } from 'zod';
+import { cropSchema, cropsWithBuiltIns, type CropDefinition } from './crops';
 import { farmSchema } from './farm';
 import { toFieldIssues, type FieldIssue } from './issues';
+import { amount, id, list, month, percent, text } from './messages';
+import { upgradeFormat1 } from './plan-file-format-1';
 
 /**
- * The plan document: one JSON file holding a farm, its fields, herd, field operations, crop practices,
- * rotations, price sets by year and one plan. Quantities are US customary (acres, lb, bu, gal, ft, mph);
- * `farm.unitSystem` only chooses how the app shows them. Every default the engine relies on is written
- * here with `.default()`, so a parsed document states every input the engine uses.
+ * The plan document, format 2: one JSON file holding a farm, its crops, fields, herd, field operations,
+ * crop practices, rotations, price sets by year and one plan. Quantities are US customary (acres, lb,
+ * bu, gal, ft, mph); `farm.unitSystem` only chooses how the app shows them. Every default the engine
+ * relies on is written here with `.default()`, so a parsed document states every input the engine uses.
+ * Ranges are plausible bounds a farm's numbers stay inside: they catch slips (a missed decimal point)
+ * and keep every result a finite number.
  */
 
-const idSchema = z
-	.string()
-	.regex(/^[a-z0-9][a-z0-9-]*$/, 'Use lower-case letters, digits and hyphens (e.g. "north-flat")');
-const nameSchema = z.string().trim().min(1, 'Required');
-const monthSchema = z
-	.number()
-	.int()
-	.min(1, 'Month is 1 (Jan) to 12 (Dec)')
-	.max(12, 'Month is 1 (Jan) to 12 (Dec)');
-const percentSchema = z.number().min(0, 'At least 0 %').max(100, 'At most 100 %');
-const nonNegative = z.number().min(0, 'Cannot be negative');
-const positive = z.number().positive('Must be more than 0');
-const yearSchema = z.number().int().min(1900).max(2200);
+export const currentFormatVersion = 2;
 
-/** Crops the engine prices and converts; grains are sold by the bushel, forages by the ton (2,000 lb, as fed). */
-export const cropSchema = z.enum([
-	'corn',
-	'soybean',
-	'wheat',
-	'oats',
-	'barley',
-	'rye',
-	'oat-pea-forage',
-	'hay'
-]);
+const name = (label: string) => text(label, { max: 120, required: true });
+const notes = (label: string) => text(label, { max: 4000 }).default('');
+const yearSchema = amount('the year', { min: 1950, max: 2200, integer: true });
+const usdPerAcre = (label: string) => amount(label, { min: 0, max: 5000, usdPer: 'acre' });
 
 // The farm part is the same shape the farm settings form and API take: one schema for both.
 export { farmSchema };
 
 export const fieldSchema = z.strictObject({
-	id: idSchema,
-	name: nameSchema,
-	acres: positive,
-	productivityIndex: z
-		.number()
-		.min(0.1)
-		.max(3)
+	id: id('the field id'),
+	name: name('the field name'),
+	acres: amount('field area', { above: 0, max: 20_000, unit: 'acres' }),
+	productivityIndex: amount('the productivity index', { min: 0.1, max: 3 })
 		.default(1)
 		.describe("1.00 = the farm's average field; scales the yield goal."),
-	priorCrop: z.string().default(''),
-	priorCropNitrogenCreditLbPerAcre: nonNegative
+	priorCrop: text('the prior crop', { max: 120 }).default(''),
+	priorCropNitrogenCreditLbPerAcre: amount('the prior crop N credit', {
+		min: 0,
+		max: 300,
+		unit: 'lb N per acre'
+	})
 		.default(0)
 		.describe("N credit the crop grown before the plan's first year leaves for that year."),
-	notes: z.string().default('')
+	notes: notes('field notes')
 });
 
+const choreHours = (label: string) => amount(label, { min: 0, max: 24, unit: 'hours a day' });
+
 export const herdSchema = z.strictObject({
-	head: z.number().int().min(0),
-	averageWeightLb: positive,
+	head: amount('the number of head', { min: 0, max: 20_000, integer: true }),
+	averageWeightLb: amount('the average live weight', { min: 100, max: 3000, unit: 'lb' }),
 	// Society for Range Management (1998) glossary: one animal unit eats about 26 lb forage DM a day.
-	intakeLbDmPerAuDay: positive.default(26),
-	feedingSeasonStartMonth: monthSchema,
-	feedingSeasonDays: z.number().int().min(0).max(366),
-	maxGrazingDays: z
-		.number()
-		.int()
-		.min(0)
-		.max(366)
+	intakeLbDmPerAuDay: amount('the daily intake', {
+		min: 5,
+		max: 60,
+		unit: 'lb dry matter per animal unit'
+	}).default(26),
+	feedingSeasonStartMonth: month('the month the feeding season starts'),
+	feedingSeasonDays: amount('the feeding season', {
+		min: 0,
+		max: 366,
+		integer: true,
+		unit: 'days'
+	}),
+	maxGrazingDays: amount('the grazing days', { min: 0, max: 366, integer: true, unit: 'days' })
 		.nullable()
 		.default(null)
 		.describe(
 			'Days the herd can graze before snow or mud stops it; null: the whole feeding season.'
 		),
-	baleWeightLb: positive,
-	// UNL and UF/IFAS examples use hay at 88 % dry matter.
-	baleDryMatterPercent: percentSchema.gt(0, 'Must be more than 0 %').default(88),
-	feedingWastePercent: percentSchema,
-	choreHoursPerDayFeedingHay: nonNegative,
-	choreHoursPerDayGrazing: nonNegative,
+	// Round bales weigh about 700–1,500 lb (REFERENCE-VALUES §5d); small squares from about 40 lb.
+	baleWeightLb: amount('the bale weight', { min: 20, max: 3000, unit: 'lb' }),
+	// UNL and UF/IFAS examples use hay at 88 % dry matter; baleage is down to about 40 %.
+	baleDryMatterPercent: percent('the bale dry matter', { min: 20 }).default(88),
+	// Hay feeding waste is the share of the hay put out that cattle do not eat (Oklahoma State, Lalman):
+	// 3.5–21 % with feeders, 45 % with free access (Bell & Martz 1973); 60 % bounds a slip.
+	feedingWastePercent: percent('feeding waste', { max: 60 }).describe(
+		'Share of the hay put out that is trampled or spoiled, not eaten: hay bought = hay eaten ÷ (1 − waste).'
+	),
+	choreHoursPerDayFeedingHay: choreHours('chore hours while feeding hay'),
+	choreHoursPerDayGrazing: choreHours('chore hours while grazing'),
 	// ASABE D384.2 Table 1.b, beef cow about 0.42 lb N excreted per day (from memory).
-	manureNitrogenLbPerAuDay: nonNegative.default(0.42),
+	manureNitrogenLbPerAuDay: amount('manure N', {
+		min: 0,
+		max: 2,
+		unit: 'lb N per animal unit a day'
+	}).default(0.42),
 	// Andersen et al. (2020), NDSU: no measurable N carry-over to the next crop after fall grazing a cover.
-	manureNitrogenAvailablePercent: percentSchema.default(0)
+	manureNitrogenAvailablePercent: percent('manure N available to the next crop').default(0)
 });
 
 const dieselPerAcreSchema = z.strictObject({
 	basis: z.literal('per-acre'),
-	dieselGallonsPerAcre: nonNegative
+	// Univ. of Missouri G1208: moldboard plowing, the heaviest common pass, is 1.68 gal/ac; 20 bounds a slip.
+	dieselGallonsPerAcre: amount('diesel per acre', { min: 0, max: 20, unit: 'gal' })
 });
 const dieselFromPtoSchema = z.strictObject({
 	basis: z.literal('pto-power'),
-	tractorMaxPtoHp: positive,
+	tractorMaxPtoHp: amount('the tractor PTO power', { min: 10, max: 1000, unit: 'hp' }),
 	// ISU Ag Decision Maker A3-29 (from ASAE D497): year-round average diesel use 0.044 gal/h per max PTO hp.
-	dieselGallonsPerHpHour: positive.default(0.044)
+	dieselGallonsPerHpHour: amount('diesel per hp-hour', {
+		min: 0.01,
+		max: 0.2,
+		unit: 'gal'
+	}).default(0.044)
 });
 
-const ownOperationSchema = z.strictObject({
-	id: idSchema,
-	name: nameSchema,
+const operationCommon = {
+	id: id('the operation id'),
+	name: name('the operation name'),
+	month: month("the operation's month")
+};
+const repairs = usdPerAcre('repairs');
+
+/** Own machine stated by what it is: hours follow from field capacity (ASABE D497). */
+const ownMachineSchema = z.strictObject({
+	...operationCommon,
 	by: z.literal('own'),
-	month: monthSchema,
-	speedMph: positive,
-	widthFt: positive,
-	fieldEfficiencyPercent: z.number().gt(0, 'Must be more than 0 %').max(100, 'At most 100 %'),
+	statedAs: z
+		.literal('machine')
+		.describe('Speed, width and field efficiency give the field capacity and machine hours.'),
+	speedMph: amount('the speed', { min: 0.5, max: 30, unit: 'mph' }),
+	widthFt: amount('the working width', { min: 1, max: 200, unit: 'ft' }),
+	fieldEfficiencyPercent: percent('the field efficiency', { min: 10 }),
 	fuel: z.discriminatedUnion('basis', [dieselPerAcreSchema, dieselFromPtoSchema]),
 	// farmdoc (Univ. of Illinois) machinery cost tables: labour hours = 1.1 × machine hours.
-	labourFactor: z.number().min(1).max(3).default(1.1),
-	repairsUsdPerAcre: nonNegative
+	labourFactor: amount('the labour factor', { min: 1, max: 3 }).default(1.1),
+	repairsUsdPerAcre: repairs
+});
+
+/** Own machine stated by published per-acre rates (fuel and labour tables): nothing is derived. */
+const ownPerAcreSchema = z.strictObject({
+	...operationCommon,
+	by: z.literal('own'),
+	statedAs: z
+		.literal('per-acre')
+		.describe('Diesel, machine hours and labour hours per acre as published; nothing derived.'),
+	dieselGallonsPerAcre: amount('diesel per acre', { min: 0, max: 20, unit: 'gal' }),
+	machineHoursPerAcre: amount('machine hours per acre', { min: 0, max: 10, unit: 'hours' }),
+	labourHoursPerAcre: amount('labour hours per acre', { min: 0, max: 20, unit: 'hours' }),
+	repairsUsdPerAcre: repairs.default(0)
 });
 
 const customOperationSchema = z.strictObject({
-	id: idSchema,
-	name: nameSchema,
+	...operationCommon,
 	by: z
 		.literal('custom')
 		.describe(
 			"Hired out: costs the year's custom rate per acre, no own machine hours, labour or diesel."
-		),
-	month: monthSchema
+		)
 });
 
 export const fieldOperationSchema = z.discriminatedUnion('by', [
-	ownOperationSchema,
+	z.discriminatedUnion('statedAs', [ownMachineSchema, ownPerAcreSchema]),
 	customOperationSchema
 ]);
 
 const seedingSchema = z.strictObject({
-	seedId: idSchema,
-	seedsPerAcre: positive.optional(),
-	lbPerAcre: positive.optional()
+	seedId: id('the seed id'),
+	// Corn about 34,000 and soybean 140,000 seeds/ac; small grains 1–1.5 million (common practice, no published source).
+	seedsPerAcre: amount('seeds per acre', { above: 0, max: 5_000_000 }).optional(),
+	lbPerAcre: amount('seed per acre', { above: 0, max: 500, unit: 'lb' }).optional()
 });
+
+// Published quadratic-plateau curves flatten between about 100 and 250 lb N/ac (ISU, Cerrato & Blackmer);
+// a join point above 500 lb N/ac is a slip, and the bound keeps the plateau yield finite.
+export const maxPlateauJoinLbN = 500;
 
 const nitrogenResponseSchema = z
 	.strictObject({
-		interceptBuPerAcre: nonNegative.describe('a in Y = a + bN − cN², bu/ac'),
-		linearBuPerLbN: positive.describe('b, bu per lb N'),
-		quadraticBuPerLbN2: positive.describe('c, bu per (lb N)²')
+		interceptBuPerAcre: amount('the curve intercept a', {
+			min: 0,
+			max: 400,
+			unit: 'bu/ac'
+		}).describe('a in Y = a + bN − cN², bu/ac'),
+		linearBuPerLbN: amount('the curve slope b', {
+			min: 0.01,
+			max: 5,
+			unit: 'bu per lb N'
+		}).describe('b, bu per lb N'),
+		quadraticBuPerLbN2: amount('the curve term c', {
+			above: 0,
+			max: 0.1,
+			unit: 'bu per (lb N)²'
+		}).describe('c, bu per (lb N)²')
+	})
+	.refine((r) => r.linearBuPerLbN / (2 * r.quadraticBuPerLbN2) <= maxPlateauJoinLbN, {
+		error: `The curve must level off by ${maxPlateauJoinLbN} lb N/ac: b ÷ 2c is larger (raise c or lower b).`,
+		path: ['quadraticBuPerLbN2']
 	})
 	.describe(
 		'Yield Y = a + bN − cN² bu/ac to available N (applied + credits), flat above N = b/(2c).'
 	);
 
 const coverMixSchema = z.strictObject({
-	species: z.array(z.strictObject({ seedId: idSchema, lbPerAcre: positive })).min(1),
-	biomassLbDmPerAcre: nonNegative,
-	legumeSharePercent: percentSchema.describe(
+	species: list(
+		'cover species',
+		z.strictObject({
+			seedId: id('the seed id'),
+			lbPerAcre: amount('cover seed per acre', { above: 0, max: 500, unit: 'lb' })
+		}),
+		{ min: 1, max: 20 }
+	),
+	// Cover biomass in the Corn Belt runs to a few thousand lb DM/ac (REFERENCE-VALUES §7).
+	biomassLbDmPerAcre: amount('cover biomass', {
+		min: 0,
+		max: 20_000,
+		unit: 'lb dry matter per acre'
+	}),
+	legumeSharePercent: percent('the legume share').describe(
 		"Share of the cover's dry matter that is legume: only legume N is new N for the next crop."
 	),
 	// SARE Managing Cover Crops Profitably: annual legumes hold 3-3.5 % N at flowering.
-	legumeNitrogenPercent: percentSchema.default(3.5),
+	legumeNitrogenPercent: percent('legume N', { max: 10 }).default(3.5),
 	// SARE Managing Cover Crops Profitably: about half of legume N is available in the first season.
-	nitrogenAvailablePercent: percentSchema.default(50),
-	grazingUtilisationPercent: percentSchema
+	nitrogenAvailablePercent: percent('N available to the next crop').default(50),
+	grazingUtilisationPercent: percent('cover grazing utilisation')
 		.default(0)
 		.describe('Share of the cover eaten by grazing cattle; 0 when the cover is not grazed.')
 });
 
 const residueGrazingSchema = z.strictObject({
-	// UNL (Rasby 2007; CropWatch): 16 lb leaf and husk DM per bushel of corn grain.
-	leafHuskLbDmPerBu: nonNegative.default(16),
+	leafHuskLbDmPerUnit: amount('the grazable residue per sale unit', {
+		min: 0,
+		max: 100,
+		unit: 'lb dry matter'
+	})
+		.optional()
+		.describe("Leaf and husk DM per unit of grain; left out: the crop's own figure."),
 	// UNL (Rasby 2007): cattle eat about 50 % of the leaf and husk.
-	utilisationPercent: percentSchema.default(50)
+	utilisationPercent: percent('residue utilisation').default(50)
 });
 
 export const cropPracticeSchema = z.strictObject({
-	id: idSchema,
-	name: nameSchema,
-	crop: cropSchema,
-	yieldGoalPerAcre: nonNegative.describe(
-		'bu/ac for grains, tons/ac (as fed) for forages, before productivity and N response.'
+	id: id('the practice id'),
+	name: name('the practice name'),
+	crop: id('the crop'),
+	yieldGoalPerAcre: amount('the yield goal', {
+		min: 0,
+		max: 100_000,
+		unit: 'sale units per acre'
+	}).describe(
+		"Per acre in the crop's sale unit (bu, cwt, ton as fed, lb), before productivity and N response."
 	),
-	yieldAdjustmentPercent: z
-		.number()
-		.min(-100)
-		.max(100)
+	yieldAdjustmentPercent: amount('the yield adjustment', { min: -100, max: 100, unit: '%' })
 		.default(0)
 		.describe(
 			'A stated change to yield for the practice itself, e.g. wide rows; negative for a loss.'
 		),
-	rowSpacingIn: positive.nullable().default(null),
+	rowSpacingIn: amount('the row spacing', { min: 1, max: 120, unit: 'inches' })
+		.nullable()
+		.default(null),
 	seed: seedingSchema.nullable().default(null),
 	nitrogen: z
 		.strictObject({
 			appliedLbPerAcre: z
-				.union([nonNegative, z.literal('economic-optimum')])
+				.union([
+					amount('N applied', { min: 0, max: 500, unit: 'lb N per acre' }),
+					z.literal('economic-optimum')
+				])
 				.default(0)
 				.describe(
 					"lb N/ac bought and applied, or 'economic-optimum' to buy up to the EONR less credits."
@@ -191,98 +263,127 @@ export const cropPracticeSchema = z.strictObject({
 			response: nitrogenResponseSchema.nullable().default(null)
 		})
 		.prefault({}),
-	nitrogenCreditToNextCropLbPerAcre: nonNegative.default(0),
-	otherFertiliserUsdPerAcre: nonNegative,
-	chemicalsUsdPerAcre: nonNegative,
-	otherDirectUsdPerAcre: nonNegative
+	nitrogenCreditToNextCropLbPerAcre: amount('the N credit to the next crop', {
+		min: 0,
+		max: 300,
+		unit: 'lb N per acre'
+	}).default(0),
+	otherFertiliserUsdPerAcre: usdPerAcre('other fertiliser'),
+	chemicalsUsdPerAcre: usdPerAcre('chemicals'),
+	otherDirectUsdPerAcre: usdPerAcre('other direct costs')
 		.default(0)
 		.describe('Drying, hauling, crop insurance and other direct costs per acre.'),
 	// Common practice, no published source: operating money is carried about six months, planting to harvest.
-	operatingInterestMonths: z.number().min(0).max(24).default(6),
-	operations: z
-		.array(
-			z.strictObject({
-				operationId: idSchema,
-				month: monthSchema
-					.optional()
-					.describe("Overrides the operation's usual month for this practice."),
-				passes: z.number().int().min(1).default(1)
-			})
-		)
-		.default([]),
+	operatingInterestMonths: amount('the months operating money is carried', {
+		min: 0,
+		max: 24,
+		unit: 'months'
+	}).default(6),
+	operations: list(
+		'operations',
+		z.strictObject({
+			operationId: id('the operation id'),
+			month: month("the operation's month")
+				.optional()
+				.describe("Overrides the operation's usual month for this practice."),
+			passes: amount('passes', { min: 1, max: 10, integer: true }).default(1)
+		}),
+		{ max: 50 }
+	).default([]),
 	coverMix: coverMixSchema.nullable().default(null),
 	residueGrazing: residueGrazingSchema.nullable().default(null)
 });
 
 export const rotationSchema = z.strictObject({
-	id: idSchema,
-	name: nameSchema,
-	practices: z
-		.array(idSchema)
-		.min(1, 'A rotation needs at least one practice')
-		.describe('Practice ids, one per year, in order.')
+	id: id('the rotation id'),
+	name: name('the rotation name'),
+	practices: list('practices', id('the practice id'), { min: 1, max: 30 }).describe(
+		'Practice ids, one per year, in order.'
+	)
 });
 
 const seedPriceSchema = z.strictObject({
-	usdPerThousandSeeds: nonNegative.optional(),
-	usdPerLb: nonNegative.optional()
+	usdPerThousandSeeds: amount('the seed price', {
+		min: 0,
+		max: 100,
+		usdPer: '1,000 seeds'
+	}).optional(),
+	usdPerLb: amount('the seed price', { min: 0, max: 500, usdPer: 'lb' }).optional()
 });
+
+const cropPriceSchema = amount('the crop price', { min: 0, max: 10_000, usdPer: 'sale unit' });
 
 export const priceSetSchema = z.strictObject({
 	year: yearSchema,
 	cropPricesUsdPerUnit: z
-		.partialRecord(cropSchema, nonNegative)
-		.describe('$/bu for grains, $/ton for forages.'),
-	nitrogenUsdPerLb: nonNegative,
-	dieselUsdPerGallon: nonNegative,
-	labourUsdPerHour: nonNegative,
-	hayUsdPerBale: nonNegative,
-	seedPrices: z.record(idSchema, seedPriceSchema).default({}),
-	customRatesUsdPerAcre: z.record(idSchema, nonNegative).default({})
+		.record(id('the crop'), cropPriceSchema)
+		.describe("$ per the crop's sale unit: per bu, cwt, ton or lb."),
+	nitrogenUsdPerLb: amount('the N price', { min: 0, max: 20, usdPer: 'lb N' }),
+	dieselUsdPerGallon: amount('the diesel price', { min: 0, max: 50, usdPer: 'gallon' }),
+	labourUsdPerHour: amount('the labour rate', { min: 0, max: 500, usdPer: 'hour' }),
+	hayUsdPerBale: amount('the hay price', { min: 0, max: 2000, usdPer: 'bale' }),
+	seedPrices: z.record(id('the seed id'), seedPriceSchema).default({}),
+	customRatesUsdPerAcre: z
+		.record(
+			id('the operation id'),
+			amount('the custom rate', { min: 0, max: 2000, usdPer: 'acre' })
+		)
+		.default({})
 });
 
 export const planSchema = z.strictObject({
-	name: nameSchema,
+	name: name('the plan name'),
 	horizon: z.strictObject({
 		startYear: yearSchema,
-		years: z.number().int().min(1).max(30)
+		years: amount('the plan length', { min: 1, max: 30, integer: true, unit: 'years' })
 	}),
-	fieldRotations: z.array(
+	fieldRotations: list(
+		'field rotations',
 		z.strictObject({
-			fieldId: idSchema,
-			rotationId: idSchema,
-			startingPhase: z
-				.number()
-				.int()
-				.min(1)
+			fieldId: id('the field id'),
+			rotationId: id('the rotation id'),
+			startingPhase: amount('the starting phase', { min: 1, max: 30, integer: true })
 				.default(1)
 				.describe("1 = the rotation's first practice in the first plan year.")
-		})
+		}),
+		{ max: 2000 }
 	),
-	assumptions: z
-		.array(z.string())
+	assumptions: list('assumptions', text('an assumption', { max: 1000 }), { max: 100 })
 		.default([])
 		.describe('Plain statements shown with the results (what the plan takes for granted).')
 });
 
 const planDocumentShape = z.strictObject({
-	formatVersion: z.literal(1),
-	notes: z.string().default(''),
+	formatVersion: z.literal(currentFormatVersion, {
+		error: 'formatVersion is 2 (files of the first format, 1, are read too).'
+	}),
+	notes: notes('the notes'),
 	farm: farmSchema,
-	fields: z.array(fieldSchema).min(1, 'A farm needs at least one field'),
+	crops: list('crops', cropSchema, { max: 200 })
+		.default([])
+		.describe('Crops of your own beside the built-in eight; one with a built-in id replaces it.'),
+	fields: list('fields', fieldSchema, { min: 1, max: 2000 }),
 	herd: herdSchema.nullable().default(null),
-	operations: z.array(fieldOperationSchema).default([]),
-	practices: z.array(cropPracticeSchema).min(1),
-	rotations: z.array(rotationSchema).min(1),
-	priceSets: z.array(priceSetSchema).min(1),
+	operations: list('operations', fieldOperationSchema, { max: 500 }).default([]),
+	practices: list('practices', cropPracticeSchema, { min: 1, max: 500 }),
+	rotations: list('rotations', rotationSchema, { min: 1, max: 500 }),
+	priceSets: list('price sets', priceSetSchema, { min: 1, max: 60 }),
 	plan: planSchema
 });
 
 type Shape = z.output<typeof planDocumentShape>;
 type Path = (string | number)[];
 
+/** Largest yield goal per acre by sale unit: bounds that catch slips (common practice, no published source). */
+const maxYieldGoalBySaleUnit = new Map([
+	['bu', 500],
+	['cwt', 1000],
+	['ton', 50],
+	['lb', 50_000]
+]);
+
 /** Refuses cross-references the shape alone cannot: unknown ids, duplicates, phases, missing prices. */
-function checkReferences(doc: Shape, ctx: z.RefinementCtx) {
+function checkReferences(doc: Shape, crops: Map<string, CropDefinition>, ctx: z.RefinementCtx) {
 	const refuse = (path: Path, message: string) => ctx.addIssue({ code: 'custom', path, message });
 	const uniqueIds = (items: { id: string }[], path: string) => {
 		const seen = new Set<string>();
@@ -292,56 +393,79 @@ function checkReferences(doc: Shape, ctx: z.RefinementCtx) {
 		});
 		return seen;
 	};
+	uniqueIds(doc.crops, 'crops');
 	const fieldIds = uniqueIds(doc.fields, 'fields');
 	const operationIds = uniqueIds(doc.operations, 'operations');
 	const practiceIds = uniqueIds(doc.practices, 'practices');
-	const rotationIds = uniqueIds(doc.rotations, 'rotations');
+	uniqueIds(doc.rotations, 'rotations');
 	const practiceById = new Map(doc.practices.map((p) => [p.id, p]));
+	const rotationById = new Map(doc.rotations.map((r) => [r.id, r]));
 	const customOperationIds = doc.operations.filter((o) => o.by === 'custom').map((o) => o.id);
 
 	const seedsRated = new Set<string>();
 	const lbRated = new Set<string>();
 	doc.practices.forEach((practice, i) => {
+		const at = (...rest: Path): Path => ['practices', i, ...rest];
+		const crop = crops.get(practice.crop);
+		if (!crop) {
+			refuse(at('crop'), `Unknown crop "${practice.crop}": add it to crops or use a built-in crop`);
+		} else {
+			const maxGoal = maxYieldGoalBySaleUnit.get(crop.soldBy)!;
+			if (practice.yieldGoalPerAcre > maxGoal) {
+				refuse(
+					at('yieldGoalPerAcre'),
+					`A ${crop.name} yield goal is at most ${maxGoal.toLocaleString('en-US')} ${crop.soldBy} per acre.`
+				);
+			}
+			if (practice.nitrogen.response && crop.soldBy !== 'bu') {
+				refuse(
+					at('nitrogen', 'response'),
+					`N response curves are in bu/ac: ${crop.name} is sold by the ${crop.soldBy}`
+				);
+			}
+			if (practice.nitrogen.response && crop.legume) {
+				refuse(
+					at('nitrogen', 'response'),
+					`${crop.name} is a legume: it takes no N response curve`
+				);
+			}
+			const residue = practice.residueGrazing;
+			if (
+				residue &&
+				residue.leafHuskLbDmPerUnit === undefined &&
+				crop.residueLeafHuskLbDmPerUnit === null
+			) {
+				refuse(
+					at('residueGrazing', 'leafHuskLbDmPerUnit'),
+					`${crop.name} has no grazable residue of its own: state the leaf and husk per ${crop.soldBy}`
+				);
+			}
+		}
 		if (practice.seed) {
 			const { seedsPerAcre, lbPerAcre, seedId } = practice.seed;
 			if ((seedsPerAcre === undefined) === (lbPerAcre === undefined)) {
-				refuse(['practices', i, 'seed'], 'Give either seedsPerAcre or lbPerAcre');
+				refuse(at('seed'), 'Give either seedsPerAcre or lbPerAcre');
 			}
 			(seedsPerAcre === undefined ? lbRated : seedsRated).add(seedId);
 		}
 		practice.coverMix?.species.forEach((s) => lbRated.add(s.seedId));
 		practice.operations.forEach((step, j) => {
 			if (!operationIds.has(step.operationId)) {
-				refuse(
-					['practices', i, 'operations', j, 'operationId'],
-					`Unknown operation "${step.operationId}"`
-				);
+				refuse(at('operations', j, 'operationId'), `Unknown operation "${step.operationId}"`);
 			}
 		});
 		if (practice.nitrogen.appliedLbPerAcre === 'economic-optimum' && !practice.nitrogen.response) {
 			refuse(
-				['practices', i, 'nitrogen', 'appliedLbPerAcre'],
+				at('nitrogen', 'appliedLbPerAcre'),
 				'An economic-optimum rate needs a nitrogen response curve'
-			);
-		}
-		if (practice.nitrogen.response && !isGrain(practice.crop)) {
-			refuse(
-				['practices', i, 'nitrogen', 'response'],
-				'N response curves are in bu/ac: grains only'
-			);
-		}
-		if (practice.residueGrazing && !isGrain(practice.crop)) {
-			refuse(
-				['practices', i, 'residueGrazing'],
-				'Residue grazing is figured per bushel: grains only'
 			);
 		}
 	});
 
 	doc.rotations.forEach((rotation, i) => {
-		rotation.practices.forEach((id, j) => {
-			if (!practiceIds.has(id))
-				refuse(['rotations', i, 'practices', j], `Unknown practice "${id}"`);
+		rotation.practices.forEach((practiceId, j) => {
+			if (!practiceIds.has(practiceId))
+				refuse(['rotations', i, 'practices', j], `Unknown practice "${practiceId}"`);
 		});
 	});
 
@@ -355,7 +479,7 @@ function checkReferences(doc: Shape, ctx: z.RefinementCtx) {
 			refuse([...path, 'fieldId'], `Field "${assignment.fieldId}" already has a rotation`);
 		}
 		assigned.add(assignment.fieldId);
-		const rotation = doc.rotations.find((r) => r.id === assignment.rotationId);
+		const rotation = rotationById.get(assignment.rotationId);
 		if (!rotation) {
 			refuse([...path, 'rotationId'], `Unknown rotation "${assignment.rotationId}"`);
 		} else if (assignment.startingPhase > rotation.practices.length) {
@@ -369,36 +493,38 @@ function checkReferences(doc: Shape, ctx: z.RefinementCtx) {
 		if (!assigned.has(field.id))
 			refuse(['fields', i, 'id'], `Field "${field.id}" has no rotation in the plan`);
 	});
-	if (!rotationIds.size) refuse(['rotations'], 'At least one rotation is needed');
 
 	const usedPracticeIds = new Set(
-		doc.plan.fieldRotations.flatMap(
-			(a) => doc.rotations.find((r) => r.id === a.rotationId)?.practices ?? []
-		)
+		doc.plan.fieldRotations.flatMap((a) => rotationById.get(a.rotationId)?.practices ?? [])
 	);
 	const priceSetIndexByYear = new Map<number, number>();
 	doc.priceSets.forEach((set, i) => {
 		if (priceSetIndexByYear.has(set.year))
 			refuse(['priceSets', i, 'year'], `Duplicate price set for ${set.year}`);
 		priceSetIndexByYear.set(set.year, i);
-		for (const id of usedPracticeIds) {
-			const practice = practiceById.get(id);
-			const crop = practice?.crop;
-			if (crop && set.cropPricesUsdPerUnit[crop] === undefined) {
+		const cropPrices = new Map(Object.entries(set.cropPricesUsdPerUnit));
+		const seedPrices = new Map(Object.entries(set.seedPrices));
+		const customRates = new Map(Object.entries(set.customRatesUsdPerAcre));
+		for (const practiceId of usedPracticeIds) {
+			const practice = practiceById.get(practiceId);
+			const crop = practice && crops.get(practice.crop);
+			if (!practice || !crop) continue;
+			const price = cropPrices.get(crop.id);
+			if (price === undefined) {
 				refuse(
-					['priceSets', i, 'cropPricesUsdPerUnit', crop],
-					`No price for ${crop} (practice "${id}")`
+					['priceSets', i, 'cropPricesUsdPerUnit', crop.id],
+					`No price for ${crop.name} (practice "${practiceId}")`
 				);
-			} else if (crop && practice.nitrogen.response && set.cropPricesUsdPerUnit[crop] === 0) {
+			} else if (practice.nitrogen.response && price === 0) {
 				// The N price ratio ($/lb N ÷ $/bu) has no meaning at a grain price of zero.
 				refuse(
-					['priceSets', i, 'cropPricesUsdPerUnit', crop],
-					`A ${crop} price above 0 is needed for the N response of practice "${id}"`
+					['priceSets', i, 'cropPricesUsdPerUnit', crop.id],
+					`A ${crop.name} price above 0 is needed for the N response of practice "${practiceId}"`
 				);
 			}
 		}
 		for (const seedId of seedsRated) {
-			if (set.seedPrices[seedId]?.usdPerThousandSeeds === undefined) {
+			if (seedPrices.get(seedId)?.usdPerThousandSeeds === undefined) {
 				refuse(
 					['priceSets', i, 'seedPrices', seedId, 'usdPerThousandSeeds'],
 					`No price per 1,000 seeds for "${seedId}"`
@@ -406,7 +532,7 @@ function checkReferences(doc: Shape, ctx: z.RefinementCtx) {
 			}
 		}
 		for (const seedId of lbRated) {
-			if (set.seedPrices[seedId]?.usdPerLb === undefined) {
+			if (seedPrices.get(seedId)?.usdPerLb === undefined) {
 				refuse(
 					['priceSets', i, 'seedPrices', seedId, 'usdPerLb'],
 					`No price per lb for "${seedId}"`
@@ -414,7 +540,7 @@ function checkReferences(doc: Shape, ctx: z.RefinementCtx) {
 			}
 		}
 		for (const operationId of customOperationIds) {
-			if (set.customRatesUsdPerAcre[operationId] === undefined) {
+			if (!customRates.has(operationId)) {
 				refuse(
 					['priceSets', i, 'customRatesUsdPerAcre', operationId],
 					`No custom rate for "${operationId}"`
@@ -428,29 +554,57 @@ function checkReferences(doc: Shape, ctx: z.RefinementCtx) {
 	}
 }
 
-export const planDocumentSchema = planDocumentShape.superRefine(checkReferences);
+/**
+ * The parsed document: the crop list holds the built-ins with the file's own, and each practice's
+ * residue grazing states its leaf and husk per unit (the crop's own figure when the file leaves it out).
+ */
+export const planDocumentSchema = planDocumentShape.transform((doc, ctx) => {
+	const crops = cropsWithBuiltIns(doc.crops);
+	const cropById = new Map(crops.map((crop) => [crop.id, crop]));
+	checkReferences(doc, cropById, ctx);
+	return {
+		...doc,
+		crops,
+		practices: doc.practices.map((practice) => {
+			const residue = practice.residueGrazing;
+			if (!residue) return { ...practice, residueGrazing: null };
+			const ownFigure = cropById.get(practice.crop)?.residueLeafHuskLbDmPerUnit ?? 0;
+			return {
+				...practice,
+				residueGrazing: {
+					utilisationPercent: residue.utilisationPercent,
+					leafHuskLbDmPerUnit: residue.leafHuskLbDmPerUnit ?? ownFigure
+				}
+			};
+		})
+	};
+});
 
 export type PlanDocument = z.output<typeof planDocumentSchema>;
 export type PlanDocumentInput = z.input<typeof planDocumentSchema>;
-export type Crop = z.output<typeof cropSchema>;
 export type FieldOperation = PlanDocument['operations'][number];
 export type CropPractice = PlanDocument['practices'][number];
 export type PriceSet = PlanDocument['priceSets'][number];
 export type Herd = NonNullable<PlanDocument['herd']>;
-
-export const grainCrops = ['corn', 'soybean', 'wheat', 'oats', 'barley', 'rye'] as const;
-export type GrainCrop = (typeof grainCrops)[number];
-
-export function isGrain(crop: Crop): crop is GrainCrop {
-	return (grainCrops as readonly string[]).includes(crop);
-}
+export type { CropDefinition };
 
 export type ParsePlanResult =
-	{ ok: true; plan: PlanDocument } | { ok: false; issues: FieldIssue[] };
+	{ ok: true; plan: PlanDocument; readFormatVersion: 1 | 2 } | { ok: false; issues: FieldIssue[] };
 
+/** Reads a plan document of format 1 or 2; the parsed plan is always format 2. */
 export function parsePlanDocument(input: unknown): ParsePlanResult {
-	const result = planDocumentSchema.safeParse(input);
-	return result.success
-		? { ok: true, plan: result.data }
-		: { ok: false, issues: toFieldIssues(result.error) };
+	const isFormat1 =
+		typeof input === 'object' &&
+		input !== null &&
+		'formatVersion' in input &&
+		input.formatVersion === 1;
+	const upgraded = isFormat1
+		? upgradeFormat1(input)
+		: { ok: true as const, document: input, pathInFormat1: (issue: FieldIssue) => issue };
+	if (!upgraded.ok) return upgraded;
+	const result = planDocumentSchema.safeParse(upgraded.document);
+	if (!result.success) {
+		return { ok: false, issues: toFieldIssues(result.error).map(upgraded.pathInFormat1) };
+	}
+	return { ok: true, plan: result.data, readFormatVersion: isFormat1 ? 1 : 2 };
 }

@@ -1,16 +1,12 @@
 import {
-	bushelsPerAcreToKgPerHa,
-	bushelsToTonnes,
-	kgPerLb,
-	poundsPerTon,
 	quantityUnits,
+	saleUnitsPerAcreToKgPerHa,
+	saleUnitsToTonnes,
 	toMetric,
-	tonnesPerHaPerTonPerAcre,
 	type Quantity
 } from '$lib/engine/units';
-import { isGrain, type Crop } from '$lib/schemas/plan-file';
-
-export type UnitSystem = 'us' | 'metric';
+import type { CropDefinition } from '$lib/schemas/crops';
+import type { UnitSystem } from '$lib/unit-systems';
 
 /**
  * Stored values are US customary; pages show them in the farm's chosen system. Conversion happens here,
@@ -31,21 +27,15 @@ export function displayUnits(system: UnitSystem) {
 			if (usd === null) return null;
 			return metric ? usd / quantityUnits[quantity].metricPerUs : usd;
 		},
-		/** Yield per area: bu/ac or ton/ac in US units, t/ha in metric (bushels by the crop's weight). */
-		yieldPerArea(value: number, crop: Crop): { value: number; unit: string } {
-			if (!metric) return { value, unit: isGrain(crop) ? 'bu/ac' : 'ton/ac' };
-			const tonnesPerHa = isGrain(crop)
-				? bushelsPerAcreToKgPerHa(value, crop) / 1000
-				: value * tonnesPerHaPerTonPerAcre;
-			return { value: tonnesPerHa, unit: 't/ha' };
+		/** Yield per area: per acre in the crop's sale unit (bu/ac, ton/ac…), t/ha in metric (by its weight). */
+		yieldPerArea(value: number, crop: CropDefinition): { value: number; unit: string } {
+			if (!metric) return { value, unit: `${crop.soldBy}/ac` };
+			return { value: saleUnitsPerAcreToKgPerHa(value, crop.lbPerUnit) / 1000, unit: 't/ha' };
 		},
-		/** A crop price per bushel or ton (as sold in US units) as a price per shown unit. */
-		cropPrice(usd: number, crop: Crop): { value: number; unit: string } {
-			if (!metric) return { value: usd, unit: isGrain(crop) ? 'bu' : 'ton' };
-			const tonnesPerUnit = isGrain(crop)
-				? bushelsToTonnes(1, crop)
-				: (poundsPerTon * kgPerLb) / 1000;
-			return { value: usd / tonnesPerUnit, unit: 't' };
+		/** A crop price per sale unit (bu, cwt, ton, lb) as a price per shown unit. */
+		cropPrice(usd: number, crop: CropDefinition): { value: number; unit: string } {
+			if (!metric) return { value: usd, unit: crop.soldBy };
+			return { value: usd / saleUnitsToTonnes(1, crop.lbPerUnit), unit: 't' };
 		}
 	};
 }

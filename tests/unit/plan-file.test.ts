@@ -20,9 +20,9 @@ describe('parsePlanDocument', () => {
 		expect(plan.operations[1]).toMatchObject({ fuel: { dieselGallonsPerHpHour: 0.044 } });
 		// SRM glossary: 26 lb DM per AU-day; UNL/UF: hay at 88 % DM
 		expect(plan.herd).toMatchObject({ intakeLbDmPerAuDay: 26, baleDryMatterPercent: 88 });
-		// UNL Rasby 2007: 16 lb leaf+husk per bu, 50 % utilisation
+		// UNL Rasby 2007: 16 lb leaf+husk per bu of corn (the crop's own figure), 50 % utilisation
 		expect(plan.practices[0].residueGrazing).toEqual({
-			leafHuskLbDmPerBu: 16,
+			leafHuskLbDmPerUnit: 16,
 			utilisationPercent: 50
 		});
 		// SARE MCCP: 3.5 % N in annual legumes, half available the first season
@@ -34,10 +34,16 @@ describe('parsePlanDocument', () => {
 	});
 
 	it('refuses a wrong format version and unknown keys, naming the path', () => {
-		const input = { ...smallPlanInput(), formatVersion: 2, extra: true };
-		const paths = issuesOf(input).map((i) => i.path);
-		expect(paths).toContain('formatVersion');
-		expect(paths).toContain('(document)');
+		const input = { ...smallPlanInput(), formatVersion: 3, extra: true };
+		const issues = issuesOf(input);
+		expect(issues).toContainEqual({
+			path: 'formatVersion',
+			message: 'formatVersion is 2 (files of the first format, 1, are read too).'
+		});
+		expect(issues).toContainEqual({
+			path: '(document)',
+			message: 'Unknown key "extra": check the spelling against the plan format.'
+		});
 	});
 
 	it('names the path of a bad value', () => {

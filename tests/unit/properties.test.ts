@@ -46,8 +46,14 @@ const planArbitrary = fc
 		return parsed.plan;
 	});
 
-function withAcresDoubled(plan: PlanDocument): PlanDocument {
-	return { ...plan, fields: plan.fields.map((f) => ({ ...f, acres: f.acres * 2 })) };
+/** The whole farm twice over: every field and the herd. (Doubling fields alone would leave the same
+ * herd eating a smaller share of what they offer, and credits follow what is eaten.) */
+function withFarmDoubled(plan: PlanDocument): PlanDocument {
+	return {
+		...plan,
+		fields: plan.fields.map((f) => ({ ...f, acres: f.acres * 2 })),
+		herd: plan.herd && { ...plan.herd, head: plan.herd.head * 2 }
+	};
 }
 
 const relative = (a: number, b: number) =>
@@ -72,22 +78,43 @@ describe('invariants', () => {
 		);
 	});
 
-	it('doubling every field doubles revenue, direct costs, diesel, N bought and field labour', () => {
+	it('doubling every field and the herd doubles revenue, direct costs, diesel, N bought, labour and hay', () => {
 		fc.assert(
 			fc.property(planArbitrary, (plan) => {
 				const once = evaluatePlan(plan);
-				const twice = evaluatePlan(withAcresDoubled(plan));
+				const twice = evaluatePlan(withFarmDoubled(plan));
 				once.farmYears.forEach((a, i) => {
 					const b = twice.farmYears[i];
 					expect(relative(b.revenueUsd, 2 * a.revenueUsd)).toBe(true);
 					expect(relative(b.dieselGallons, 2 * a.dieselGallons)).toBe(true);
 					expect(relative(b.nitrogenPurchasedLb, 2 * a.nitrogenPurchasedLb)).toBe(true);
 					expect(relative(b.fieldLabourHours, 2 * a.fieldLabourHours)).toBe(true);
+					expect(relative(b.hayBales, 2 * a.hayBales)).toBe(true);
 				});
 				once.fieldYears.forEach((a, i) => {
 					const b = twice.fieldYears[i];
 					expect(relative(b.directCosts.totalUsd, 2 * a.directCosts.totalUsd)).toBe(true);
 					expect(relative(b.forage.grazingAuDays, 2 * a.forage.grazingAuDays)).toBe(true);
+				});
+			})
+		);
+	});
+
+	it('a partial budget nets to the change in net return, crop switches included', () => {
+		fc.assert(
+			fc.property(planArbitrary, planArbitrary, (plan, reference) => {
+				const result = evaluatePlan(plan, reference);
+				const referenceYears = evaluatePlan(reference).farmYears;
+				const budget = result.partialBudget!;
+				budget.years.forEach((year, i) => {
+					const change = result.farmYears[i].netReturnUsd - referenceYears[i].netReturnUsd;
+					expect(year.netChangeUsd).toBeCloseTo(change, 4);
+					const sumOf = (lines: { amountUsd: number }[]) =>
+						lines.reduce((s, l) => s + l.amountUsd, 0);
+					expect(year.addedCostsUsd).toBeCloseTo(sumOf(year.lines.addedCosts), 6);
+					for (const line of Object.values(year.lines).flat()) {
+						expect(line.amountUsd).toBeGreaterThan(0);
+					}
 				});
 			})
 		);

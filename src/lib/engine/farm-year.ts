@@ -32,6 +32,9 @@ export interface FarmYearResult extends FeedingYear {
 	labourShortfallHoursByMonth: number[];
 }
 
+// Less than a minute's work in a year gives no meaningful return per hour (and can divide past any number).
+const minLabourHoursForHourlyReturn = 0.01;
+
 /** Whole-farm totals for one year: the field-years summed, then the herd fed by grazing and hay. */
 export function evaluateFarmYear(
 	year: number,
@@ -93,7 +96,9 @@ export function evaluateFarmYear(
 		netReturnUsd,
 		netReturnUsdPerAcre: netReturnUsd / acres,
 		netReturnUsdPerFamilyLabourHour:
-			labourHours > 0 ? (netReturnUsd + fieldLabourUsd + choreLabourUsd) / labourHours : null,
+			labourHours >= minLabourHoursForHourlyReturn
+				? (netReturnUsd + fieldLabourUsd + choreLabourUsd) / labourHours
+				: null,
 		nitrogenPurchasedLb,
 		dieselGallons,
 		machineHours,

@@ -29,7 +29,7 @@ const cropShape = z.strictObject({
 	soldBy: choice('how the crop is sold', saleUnits).describe(
 		'Sale unit: bu (bushel), cwt (100 lb), ton (2,000 lb, as fed) or lb. Yields and prices are per this unit.'
 	),
-	lbPerUnit: amount('the pounds in one sale unit', { above: 0, max: 2000, unit: 'lb' })
+	lbPerUnit: amount('the pounds in one sale unit', { min: 0.1, max: 2000, unit: 'lb' })
 		.optional()
 		.describe(
 			'Pounds in one bushel (e.g. corn 56); not needed for cwt, ton and lb, which state their weight.'

@@ -27,7 +27,8 @@ export { farmSchema };
 export const fieldSchema = z.strictObject({
 	id: id('the field id'),
 	name: name('the field name'),
-	acres: amount('field area', { above: 0, max: 20_000, unit: 'acres' }),
+	// A hundredth of an acre is a garden plot; per-acre results divide by it.
+	acres: amount('field area', { min: 0.01, max: 20_000, unit: 'acres' }),
 	productivityIndex: amount('the productivity index', { min: 0.1, max: 3 })
 		.default(1)
 		.describe("1.00 = the farm's average field; scales the yield goal."),
@@ -382,6 +383,9 @@ const maxYieldGoalBySaleUnit = new Map([
 	['lb', 50_000]
 ]);
 
+// A cent a bushel: below it the N price ratio is meaningless (and grows past any finite number).
+const minGrainPriceForResponse = 0.01;
+
 /** Refuses cross-references the shape alone cannot: unknown ids, duplicates, phases, missing prices. */
 function checkReferences(doc: Shape, crops: Map<string, CropDefinition>, ctx: z.RefinementCtx) {
 	const refuse = (path: Path, message: string) => ctx.addIssue({ code: 'custom', path, message });
@@ -515,11 +519,11 @@ function checkReferences(doc: Shape, crops: Map<string, CropDefinition>, ctx: z.
 					['priceSets', i, 'cropPricesUsdPerUnit', crop.id],
 					`No price for ${crop.name} (practice "${practiceId}")`
 				);
-			} else if (practice.nitrogen.response && price === 0) {
+			} else if (practice.nitrogen.response && price < minGrainPriceForResponse) {
 				// The N price ratio ($/lb N ÷ $/bu) has no meaning at a grain price of zero.
 				refuse(
 					['priceSets', i, 'cropPricesUsdPerUnit', crop.id],
-					`A ${crop.name} price above 0 is needed for the N response of practice "${practiceId}"`
+					`A ${crop.name} price of at least $0.01 a bushel is needed for the N response of practice "${practiceId}"`
 				);
 			}
 		}

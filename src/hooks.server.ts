@@ -1,13 +1,14 @@
 import type { Handle, HandleServerError } from '@sveltejs/kit';
 import { sequence } from '@sveltejs/kit/hooks';
 import { handle as authHandle } from '$lib/server/auth/auth';
+import { db } from '$lib/server/db';
 import { findSessionUser } from '$lib/server/db/users';
 
 /** Puts the signed-in user (still existing, with current site role) on `locals` for every request. */
 const loadUser: Handle = async ({ event, resolve }) => {
 	const session = await event.locals.auth();
 	const id = session?.user?.id;
-	event.locals.user = id ? ((await findSessionUser(id)) ?? null) : null;
+	event.locals.user = id ? ((await findSessionUser(db, id)) ?? null) : null;
 	return resolve(event);
 };
 

@@ -3,11 +3,14 @@
 import './load-env';
 import { readFileSync, readdirSync } from 'node:fs';
 import { eq } from 'drizzle-orm';
+import type { FarmRole } from '../../src/lib/roles';
+import type { FarmSettings } from '../../src/lib/schemas/farm';
 import { parsePlanDocument, type PlanDocument } from '../../src/lib/schemas/plan-file';
 import { hashPassword } from '../../src/lib/server/auth/password';
 import { createDb } from '../../src/lib/server/db/client';
+import { createFarm, insertMemberships } from '../../src/lib/server/db/farms';
 import { importPlanDocument } from '../../src/lib/server/db/plan-documents';
-import { farms, memberships, users } from '../../src/lib/server/db/schema';
+import { users } from '../../src/lib/server/db/schema';
 
 export const DEMO_PASSWORD = 'furrowcast-demo';
 
@@ -20,27 +23,31 @@ const people = {
 };
 
 type Person = keyof typeof people;
-type Role = 'owner' | 'editor' | 'reviewer';
+/** Who creates the farm (its owner) and who else is given a role on it. */
+interface People {
+	owner: Person;
+	others: [Person, FarmRole][];
+}
 
-const mapleCouleeMembers: [Person, Role][] = [
-	['owner', 'owner'],
-	['partner', 'editor'],
-	['lender', 'reviewer']
-];
+const mapleCouleePeople: People = {
+	owner: 'owner',
+	others: [
+		['partner', 'editor'],
+		['lender', 'reviewer']
+	]
+};
 
 // A second client farm of the lender's, with settings only. Invented figures.
-const birchHollow = {
+const birchHollow: { settings: FarmSettings; people: People } = {
 	settings: {
 		name: 'Birch Hollow Farm',
 		region: 'Upper Midwest',
+		unitSystem: 'us',
 		labourHoursAvailableByMonth: [160, 160, 180, 240, 280, 240, 220, 220, 240, 280, 220, 160],
 		interestRatePercent: 7,
 		fixedCostsUsdPerYear: 90000
 	},
-	members: [
-		['neighbour', 'owner'],
-		['lender', 'reviewer']
-	] as [Person, Role][]
+	people: { owner: 'neighbour', others: [['lender', 'reviewer']] }
 };
 
 /** The demo farm's plan files; `reference.json` is its reference plan. */
@@ -76,36 +83,38 @@ try {
 		const passwordHash = await hashPassword(DEMO_PASSWORD);
 		const plans = demoPlans();
 		await db.transaction(async (tx) => {
-			const ids: Record<string, string> = {};
-			for (const [key, person] of Object.entries(people)) {
+			const ids = new Map<Person, string>();
+			for (const [key, person] of Object.entries(people) as [Person, (typeof people)[Person]][]) {
 				const [row] = await tx
 					.insert(users)
 					.values({ ...person, passwordHash, emailVerified: new Date() })
 					.returning({ id: users.id });
-				ids[key] = row.id;
+				ids.set(key, row.id);
 			}
-			const addFarm = async (settings: typeof birchHollow.settings, members: [Person, Role][]) => {
-				const [farm] = await tx.insert(farms).values(settings).returning({ id: farms.id });
-				await tx
-					.insert(memberships)
-					.values(
-						members.map(([person, role]) => ({ farmId: farm.id, userId: ids[person], role }))
-					);
+			const idOf = (person: Person) => ids.get(person)!;
+			// The app's own farm creation (owner membership and audit entry), then the other roles.
+			const addFarm = async (settings: FarmSettings, { owner, others }: People) => {
+				const farm = await createFarm(tx, idOf(owner), settings);
+				await insertMemberships(
+					tx,
+					farm.id,
+					others.map(([person, role]) => ({ userId: idOf(person), role }))
+				);
 				return farm.id;
 			};
 			// Maple Coulee Farm is its plan files: settings, fields, herd, prices, practices and plans.
 			const reference = plans.find(({ file }) => file === 'reference.json');
 			if (!reference) throw new Error('scenarios/reference.json is missing');
-			const mapleCouleeId = await addFarm(reference.doc.farm, mapleCouleeMembers);
+			const mapleCouleeId = await addFarm(reference.doc.farm, mapleCouleePeople);
 			for (const { file, doc } of plans) {
 				await importPlanDocument(tx, {
 					farmId: mapleCouleeId,
-					userId: ids.owner,
+					userId: idOf('owner'),
 					doc,
 					isReference: file === 'reference.json'
 				});
 			}
-			await addFarm(birchHollow.settings, birchHollow.members);
+			await addFarm(birchHollow.settings, birchHollow.people);
 		});
 		console.log('demo data seeded');
 	}

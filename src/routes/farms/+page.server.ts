@@ -2,12 +2,13 @@ import { fail, redirect } from '@sveltejs/kit';
 import { farmSettingsFromForm, farmSchema } from '$lib/schemas/farm';
 import { toFieldErrors } from '$lib/schemas/issues';
 import { requireUser } from '$lib/server/auth/access';
+import { db } from '$lib/server/db';
 import { createFarm, listFarmsForUser } from '$lib/server/db/farms';
 import type { Actions, PageServerLoad } from './$types';
 
 export const load = (async (event) => {
 	const user = requireUser(event);
-	return { farms: await listFarmsForUser(user.id) };
+	return { farms: await listFarmsForUser(db, user.id) };
 }) satisfies PageServerLoad;
 
 export const actions = {
@@ -16,7 +17,7 @@ export const actions = {
 		const input = farmSettingsFromForm(await event.request.formData());
 		const parsed = farmSchema.safeParse(input);
 		if (!parsed.success) return fail(400, { values: input, errors: toFieldErrors(parsed.error) });
-		const farm = await createFarm(user.id, parsed.data);
+		const farm = await createFarm(db, user.id, parsed.data);
 		redirect(303, `/farms/${farm.id}`);
 	}
 } satisfies Actions;

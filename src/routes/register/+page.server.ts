@@ -3,6 +3,7 @@ import { registerSchema } from '$lib/schemas/account';
 import { toFieldErrors } from '$lib/schemas/issues';
 import { signIn } from '$lib/server/auth/auth';
 import { hashPassword } from '$lib/server/auth/password';
+import { db } from '$lib/server/db';
 import { createUser } from '$lib/server/db/users';
 import type { Actions, PageServerLoad } from './$types';
 
@@ -19,7 +20,7 @@ export const actions = {
 		if (!parsed.success) return fail(400, { values, errors: toFieldErrors(parsed.error) });
 
 		const { name, email, password } = parsed.data;
-		const user = await createUser({ name, email, passwordHash: await hashPassword(password) });
+		const user = await createUser(db, { name, email, passwordHash: await hashPassword(password) });
 		if (!user) {
 			return fail(400, {
 				values,

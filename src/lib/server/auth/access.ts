@@ -1,5 +1,7 @@
 import { error, redirect, type RequestEvent } from '@sveltejs/kit';
 import { z } from 'zod';
+import type { FarmRole } from '$lib/roles';
+import { db } from '$lib/server/db';
 import { findMembership } from '$lib/server/db/farms';
 
 /** The one table that says what each farm role may do. */
@@ -7,9 +9,8 @@ export const farmPermissions = {
 	owner: ['farm:view', 'farm:edit', 'plan:edit', 'members:manage'],
 	editor: ['farm:view', 'farm:edit', 'plan:edit'],
 	reviewer: ['farm:view', 'plan:review']
-} as const;
+} as const satisfies Record<FarmRole, readonly string[]>;
 
-export type FarmRole = keyof typeof farmPermissions;
 export type FarmAction = (typeof farmPermissions)[FarmRole][number];
 
 export interface SessionUser {
@@ -52,7 +53,7 @@ export async function requireFarmAccess(
 ) {
 	const user = requireUser(event);
 	const membership = farmIdSchema.safeParse(farmId).success
-		? await findMembership(farmId, user.id)
+		? await findMembership(db, farmId, user.id)
 		: undefined;
 	if (!membership) error(404, 'Farm not found.');
 	if (!roleAllows(membership.role, action)) {

@@ -38,7 +38,7 @@ export const { handle, signIn, signOut } = SvelteKitAuth(async (event) => ({
 				const { email, password } = parsed.data;
 				const address = event.getClientAddress();
 				if ((await secondsUntilNextAttempt(email, address)) > 0) throw new TooManyAttempts();
-				const user = await findUserByEmail(email);
+				const user = await findUserByEmail(db, email);
 				if (!user?.passwordHash || !(await verifyPassword(user.passwordHash, password))) {
 					await recordFailedSignIn(email, address);
 					return null;

@@ -1,9 +1,9 @@
 import { and, count, eq, sum } from 'drizzle-orm';
+import type { FarmRole } from '$lib/roles';
 import type { FarmSettings } from '$lib/schemas/farm';
-import { db } from '.';
-export { farmSettingsOf } from './farm-settings';
+import { insertAuditEntry } from './audit';
+import type { Db, Tx } from './client';
 import {
-	auditLog,
 	cropPractices,
 	farms,
 	fieldOperations,
@@ -16,7 +16,20 @@ import {
 	users
 } from './schema';
 
-export async function listFarmsForUser(userId: string) {
+/** A farm row as its settings (the farm schema's shape) with its id: what forms and the API show. */
+export function farmSettingsOf(farm: typeof farms.$inferSelect): FarmSettings & { id: string } {
+	return {
+		id: farm.id,
+		name: farm.name,
+		region: farm.region,
+		unitSystem: farm.unitSystem,
+		labourHoursAvailableByMonth: farm.labourHoursAvailableByMonth,
+		interestRatePercent: farm.interestRatePercent,
+		fixedCostsUsdPerYear: farm.fixedCostsUsdPerYear
+	};
+}
+
+export async function listFarmsForUser(db: Db | Tx, userId: string) {
 	return db
 		.select({ id: farms.id, name: farms.name, region: farms.region, role: memberships.role })
 		.from(memberships)
@@ -25,35 +38,54 @@ export async function listFarmsForUser(userId: string) {
 		.orderBy(farms.name);
 }
 
-export async function findMembership(farmId: string, userId: string) {
+export async function findMembership(db: Db | Tx, farmId: string, userId: string) {
 	return db.query.memberships.findFirst({
 		where: and(eq(memberships.farmId, farmId), eq(memberships.userId, userId)),
 		with: { farm: true }
 	});
 }
 
-/** Creates a farm with its creator as owner, in one transaction. */
-export async function createFarm(userId: string, settings: FarmSettings) {
+/** Creates a farm with its creator as owner, and its audit entry, in one transaction. */
+export async function createFarm(db: Db | Tx, userId: string, settings: FarmSettings) {
 	return db.transaction(async (tx) => {
 		const [farm] = await tx
 			.insert(farms)
 			.values(settings)
 			.returning({ id: farms.id, name: farms.name });
-		await tx.insert(memberships).values({ farmId: farm.id, userId, role: 'owner' });
-		await tx.insert(auditLog).values({ farmId: farm.id, userId, action: 'farm.created' });
-		return farm;
+		const [membership] = await tx
+			.insert(memberships)
+			.values({ farmId: farm.id, userId, role: 'owner' })
+			.returning({ role: memberships.role });
+		await insertAuditEntry(tx, { farmId: farm.id, userId, action: 'farm.created' });
+		return { ...farm, role: membership.role };
 	});
 }
 
-export async function updateFarm(farmId: string, userId: string, settings: FarmSettings) {
+/** Gives more people a role on a farm. */
+export async function insertMemberships(
+	db: Db | Tx,
+	farmId: string,
+	members: { userId: string; role: FarmRole }[]
+) {
+	if (members.length) {
+		await db.insert(memberships).values(members.map((member) => ({ ...member, farmId })));
+	}
+}
+
+export async function updateFarm(
+	db: Db | Tx,
+	farmId: string,
+	userId: string,
+	settings: FarmSettings
+) {
 	await db.transaction(async (tx) => {
 		await tx.update(farms).set(settings).where(eq(farms.id, farmId));
-		await tx.insert(auditLog).values({ farmId, userId, action: 'farm.updated' });
+		await insertAuditEntry(tx, { farmId, userId, action: 'farm.updated' });
 	});
 }
 
 /** Who can see the farm, owners first. */
-export async function listMembers(farmId: string) {
+export async function listMembers(db: Db | Tx, farmId: string) {
 	return db
 		.select({ name: users.name, email: users.email, role: memberships.role })
 		.from(memberships)
@@ -63,7 +95,7 @@ export async function listMembers(farmId: string) {
 }
 
 /** How far the farm is set up: one count per part, for the farm home's checklist. */
-export async function getFarmSetup(farmId: string) {
+export async function getFarmSetup(db: Db | Tx, farmId: string) {
 	const [fieldRows, herdRows, priceRows, operationRows, practiceRows, rotationRows, planRows] =
 		await Promise.all([
 			db

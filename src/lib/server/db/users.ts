@@ -1,20 +1,24 @@
 import { eq } from 'drizzle-orm';
-import { db } from '.';
-import { auditLog, users } from './schema';
+import { insertAuditEntry } from './audit';
+import type { Db, Tx } from './client';
+import { users } from './schema';
 
-export async function findUserByEmail(email: string) {
+export async function findUserByEmail(db: Db | Tx, email: string) {
 	return db.query.users.findFirst({ where: eq(users.email, email) });
 }
 
-export async function findSessionUser(id: string) {
+export async function findSessionUser(db: Db | Tx, id: string) {
 	return db.query.users.findFirst({
 		where: eq(users.id, id),
 		columns: { id: true, email: true, name: true, isSiteAdmin: true }
 	});
 }
 
-/** Creates an account; null when the e-mail is already taken. */
-export async function createUser(input: { name: string; email: string; passwordHash: string }) {
+/** Creates an account and its audit entry in one transaction; null when the e-mail is already taken. */
+export async function createUser(
+	db: Db | Tx,
+	input: { name: string; email: string; passwordHash: string }
+) {
 	return db.transaction(async (tx) => {
 		const [user] = await tx
 			.insert(users)
@@ -22,12 +26,12 @@ export async function createUser(input: { name: string; email: string; passwordH
 			.onConflictDoNothing({ target: users.email })
 			.returning({ id: users.id });
 		if (!user) return null;
-		await tx.insert(auditLog).values({ userId: user.id, action: 'user.registered' });
+		await insertAuditEntry(tx, { userId: user.id, action: 'user.registered' });
 		return user;
 	});
 }
 
-export async function listUsers() {
+export async function listUsers(db: Db | Tx) {
 	return db.query.users.findMany({
 		columns: { id: true, email: true, name: true, isSiteAdmin: true, createdAt: true },
 		orderBy: users.email

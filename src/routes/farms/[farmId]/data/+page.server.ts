@@ -1,14 +1,29 @@
 import { cropSchema } from '$lib/schemas/plan-file';
 import { requireFarmAccess } from '$lib/server/auth/access';
 import { displayUnits } from '$lib/server/display-units';
-import { getFarmData } from '$lib/server/db/farm-data';
+import { db } from '$lib/server/db';
+import { listCropPracticesByFarm } from '$lib/server/db/crop-practices';
+import { listFieldOperationsByFarm } from '$lib/server/db/field-operations';
+import { listFieldsByFarm } from '$lib/server/db/fields';
+import { findHerdByFarm } from '$lib/server/db/herds';
+import { listPlansByFarm } from '$lib/server/db/plans';
+import { listPriceSetsByFarm } from '$lib/server/db/price-sets';
+import { listRotationsByFarm } from '$lib/server/db/rotations';
 import type { PageServerLoad } from './$types';
 
+// Amounts and prices are in the farm's shown units: `…PerArea` is $/ac or $/ha as `units.area` says.
 export const load = (async (event) => {
 	const { farm } = await requireFarmAccess(event, event.params.farmId, 'farm:view');
-	const data = await getFarmData(farm.id);
+	const [fields, herd, priceSets, operations, practices, rotations, plans] = await Promise.all([
+		listFieldsByFarm(db, farm.id),
+		findHerdByFarm(db, farm.id),
+		listPriceSetsByFarm(db, farm.id),
+		listFieldOperationsByFarm(db, farm.id),
+		listCropPracticesByFarm(db, farm.id),
+		listRotationsByFarm(db, farm.id),
+		listPlansByFarm(db, farm.id)
+	]);
 	const show = displayUnits(farm.unitSystem);
-	const herd = data.herd;
 	return {
 		farm: { id: farm.id, name: farm.name },
 		units: {
@@ -19,37 +34,57 @@ export const load = (async (event) => {
 			length: show.unit('length'),
 			volume: show.unit('volume')
 		},
-		fields: data.fields.map((field) => ({ ...field, area: show.amount(field.acres, 'area') })),
+		fields: fields.map((field) => ({
+			id: field.id,
+			name: field.name,
+			area: show.amount(field.acres, 'area'),
+			productivityIndex: field.productivityIndex,
+			priorCrop: field.priorCrop,
+			notes: field.notes
+		})),
 		herd: herd && {
-			...herd,
+			head: herd.head,
 			averageWeight: show.amount(herd.averageWeightLb, 'mass'),
 			intakeDmPerAuDay: show.amount(herd.intakeLbDmPerAuDay, 'mass'),
-			baleWeight: show.amount(herd.baleWeightLb, 'mass')
+			feedingSeasonStartMonth: herd.feedingSeasonStartMonth,
+			feedingSeasonDays: herd.feedingSeasonDays,
+			baleWeight: show.amount(herd.baleWeightLb, 'mass'),
+			baleDryMatterPercent: herd.baleDryMatterPercent,
+			feedingWastePercent: herd.feedingWastePercent,
+			choreHoursPerDayFeedingHay: herd.choreHoursPerDayFeedingHay,
+			choreHoursPerDayGrazing: herd.choreHoursPerDayGrazing
 		},
-		priceSets: data.priceSets.map((set) => ({
-			...set,
-			nitrogenUsd: show.pricePer(set.nitrogenUsdPerLb, 'mass'),
-			dieselUsd: show.pricePer(set.dieselUsdPerGallon, 'volume'),
-			cropPrices: set.items
-				.filter((item) => item.kind === 'crop')
-				.map((item) => ({
-					crop: item.key,
-					...show.cropPrice(item.priceUsd, cropSchema.parse(item.key))
-				}))
+		priceSets: priceSets.map((set) => ({
+			id: set.id,
+			year: set.year,
+			nitrogenUsdPerMass: show.pricePer(set.nitrogenUsdPerLb, 'mass'),
+			dieselUsdPerVolume: show.pricePer(set.dieselUsdPerGallon, 'volume'),
+			labourUsdPerHour: set.labourUsdPerHour,
+			hayUsdPerBale: set.hayUsdPerBale,
+			cropPrices: set.items.map((item) => ({
+				crop: item.key,
+				...show.cropPrice(item.priceUsd, cropSchema.parse(item.key))
+			}))
 		})),
-		operations: data.operations.map((op) => ({
-			...op,
+		operations: operations.map((op) => ({
+			id: op.id,
+			name: op.name,
+			by: op.by,
+			month: op.month,
 			speed: show.amount(op.speedMph, 'speed'),
 			width: show.amount(op.widthFt, 'length'),
-			repairsUsd: show.pricePer(op.repairsUsdPerAcre, 'area')
+			fieldEfficiencyPercent: op.fieldEfficiencyPercent,
+			repairsUsdPerArea: show.pricePer(op.repairsUsdPerAcre, 'area')
 		})),
-		practices: data.practices.map((practice) => ({
-			...practice,
+		practices: practices.map((practice) => ({
+			id: practice.id,
+			name: practice.name,
+			crop: practice.crop,
 			yieldGoal: show.yieldPerArea(practice.yieldGoalPerAcre, practice.crop),
-			chemicalsUsd: show.pricePer(practice.chemicalsUsdPerAcre, 'area'),
-			otherFertiliserUsd: show.pricePer(practice.otherFertiliserUsdPerAcre, 'area')
+			chemicalsUsdPerArea: show.pricePer(practice.chemicalsUsdPerAcre, 'area'),
+			otherFertiliserUsdPerArea: show.pricePer(practice.otherFertiliserUsdPerAcre, 'area')
 		})),
-		rotations: data.rotations,
-		plans: data.plans
+		rotations,
+		plans
 	};
 }) satisfies PageServerLoad;

@@ -2,6 +2,7 @@ import { fail, redirect } from '@sveltejs/kit';
 import { farmSettingsFromForm, farmSchema } from '$lib/schemas/farm';
 import { toFieldErrors } from '$lib/schemas/issues';
 import { requireFarmAccess } from '$lib/server/auth/access';
+import { db } from '$lib/server/db';
 import { farmSettingsOf, updateFarm } from '$lib/server/db/farms';
 import type { Actions, PageServerLoad } from './$types';
 
@@ -16,7 +17,7 @@ export const actions = {
 		const input = farmSettingsFromForm(await event.request.formData());
 		const parsed = farmSchema.safeParse(input);
 		if (!parsed.success) return fail(400, { values: input, errors: toFieldErrors(parsed.error) });
-		await updateFarm(farm.id, user.id, parsed.data);
+		await updateFarm(db, farm.id, user.id, parsed.data);
 		redirect(303, `/farms/${farm.id}`);
 	}
 } satisfies Actions;

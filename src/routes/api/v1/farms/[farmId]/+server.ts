@@ -2,6 +2,7 @@ import { json } from '@sveltejs/kit';
 import { farmSchema } from '$lib/schemas/farm';
 import { invalidInput, readJson } from '$lib/server/api';
 import { requireFarmAccess } from '$lib/server/auth/access';
+import { db } from '$lib/server/db';
 import { farmSettingsOf, updateFarm } from '$lib/server/db/farms';
 import type { RequestHandler } from './$types';
 
@@ -17,6 +18,6 @@ export const PUT: RequestHandler = async (event) => {
 	if (!body.ok) return body.response;
 	const parsed = farmSchema.safeParse(body.body);
 	if (!parsed.success) return invalidInput(parsed.error);
-	await updateFarm(farm.id, user.id, parsed.data);
+	await updateFarm(db, farm.id, user.id, parsed.data);
 	return json({ farm: { ...farmSettingsOf(farm), ...parsed.data }, role });
 };

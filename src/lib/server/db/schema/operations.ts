@@ -1,0 +1,36 @@
+import { relations } from 'drizzle-orm';
+import { numeric, pgEnum, pgTable, smallint, text, uniqueIndex, uuid } from 'drizzle-orm/pg-core';
+import { timestamps } from './columns';
+import { farmReference, farms } from './farms';
+
+export const operationBy = pgEnum('operation_by', ['own', 'custom']);
+export const fuelBasis = pgEnum('fuel_basis', ['per-acre', 'pto-power']);
+
+/** A field operation: own machinery (capacity, fuel, labour, repairs) or hired at a custom rate. */
+export const fieldOperations = pgTable(
+	'field_operations',
+	{
+		id: uuid().primaryKey().defaultRandom(),
+		farmId: farmReference(),
+		key: text().notNull(),
+		name: text().notNull(),
+		by: operationBy().notNull(),
+		/** 1 = January. */
+		month: smallint().notNull(),
+		speedMph: numeric({ mode: 'number', precision: 5, scale: 2 }),
+		widthFt: numeric({ mode: 'number', precision: 6, scale: 2 }),
+		fieldEfficiencyPercent: numeric({ mode: 'number', precision: 5, scale: 2 }),
+		fuelBasis: fuelBasis(),
+		dieselGallonsPerAcre: numeric({ mode: 'number', precision: 6, scale: 3 }),
+		tractorMaxPtoHp: numeric({ mode: 'number', precision: 6, scale: 1 }),
+		dieselGallonsPerHpHour: numeric({ mode: 'number', precision: 6, scale: 4 }),
+		labourFactor: numeric({ mode: 'number', precision: 4, scale: 2 }),
+		repairsUsdPerAcre: numeric({ mode: 'number', precision: 8, scale: 2 }),
+		...timestamps
+	},
+	(t) => [uniqueIndex().on(t.farmId, t.key)]
+);
+
+export const fieldOperationsRelations = relations(fieldOperations, ({ one }) => ({
+	farm: one(farms, { fields: [fieldOperations.farmId], references: [farms.id] })
+}));

@@ -21,7 +21,7 @@ describe('odd but legal inputs', () => {
 		for (const practice of input.practices) practice.operations![0].operationId = 'constructor';
 		input.practices[0].seed!.seedId = 'constructor';
 		for (const set of input.priceSets) {
-			set.seedPrices!.constructor = { usdPerThousandSeeds: 3.6 };
+			Object.assign(set.seedPrices!, { constructor: { usdPerThousandSeeds: 3.6 } });
 		}
 		const parsed = parsePlanDocument(input);
 		expect(parsed.ok).toBe(true);

@@ -12,7 +12,7 @@ describe('plan format documents', () => {
 
 	it('the JSON Schema states defaults and refuses unknown keys', () => {
 		const schema = JSON.parse(planFileJsonSchemaText());
-		expect(schema.properties.formatVersion.const).toBe(1);
+		expect(schema.properties.formatVersion.const).toBe(2);
 		expect(schema.additionalProperties).toBe(false);
 		// SRM glossary default intake, 26 lb DM per AU-day
 		expect(schema.properties.herd.anyOf[0].properties.intakeLbDmPerAuDay.default).toBe(26);

@@ -12,7 +12,7 @@ export function planFileJsonSchema(): Record<string, unknown> {
 		...generated,
 		title: 'Furrowcast plan file',
 		description:
-			'One farm, its fields, herd, field operations, crop practices, rotations, price sets and one plan. US customary units; formatVersion 1.'
+			'One farm, its fields, herd, field operations, crop practices, rotations, price sets and one plan. US customary units; formatVersion 2 (format 1 files are read too).'
 	};
 }
 

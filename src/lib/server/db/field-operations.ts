@@ -60,13 +60,21 @@ function rowOf(
 	farmId: string,
 	op: PlanDocument['operations'][number]
 ): typeof fieldOperations.$inferInsert {
-	if (op.by === 'custom') return { farmId, key: op.id, name: op.name, by: op.by, month: op.month };
+	const common = { farmId, key: op.id, name: op.name, by: op.by, month: op.month };
+	if (op.by === 'custom') return common;
+	if (op.statedAs === 'per-acre') {
+		return {
+			...common,
+			statedAs: op.statedAs,
+			dieselGallonsPerAcre: op.dieselGallonsPerAcre,
+			machineHoursPerAcre: op.machineHoursPerAcre,
+			labourHoursPerAcre: op.labourHoursPerAcre,
+			repairsUsdPerAcre: op.repairsUsdPerAcre
+		};
+	}
 	return {
-		farmId,
-		key: op.id,
-		name: op.name,
-		by: op.by,
-		month: op.month,
+		...common,
+		statedAs: op.statedAs,
 		speedMph: op.speedMph,
 		widthFt: op.widthFt,
 		fieldEfficiencyPercent: op.fieldEfficiencyPercent,
@@ -80,7 +88,19 @@ function rowOf(
 }
 
 function operationOf(op: typeof fieldOperations.$inferSelect): FieldOperationInput {
-	if (op.by === 'custom') return { id: op.key, name: op.name, by: 'custom', month: op.month };
+	const common = { id: op.key, name: op.name, month: op.month };
+	if (op.by === 'custom') return { ...common, by: 'custom' };
+	if (op.statedAs === 'per-acre') {
+		return {
+			...common,
+			by: 'own',
+			statedAs: 'per-acre',
+			dieselGallonsPerAcre: op.dieselGallonsPerAcre!,
+			machineHoursPerAcre: op.machineHoursPerAcre!,
+			labourHoursPerAcre: op.labourHoursPerAcre!,
+			repairsUsdPerAcre: op.repairsUsdPerAcre!
+		};
+	}
 	const fuel =
 		op.fuelBasis === 'pto-power'
 			? {
@@ -90,10 +110,9 @@ function operationOf(op: typeof fieldOperations.$inferSelect): FieldOperationInp
 				}
 			: { basis: 'per-acre' as const, dieselGallonsPerAcre: op.dieselGallonsPerAcre! };
 	return {
-		id: op.key,
-		name: op.name,
+		...common,
 		by: 'own',
-		month: op.month,
+		statedAs: 'machine',
 		speedMph: op.speedMph!,
 		widthFt: op.widthFt!,
 		fieldEfficiencyPercent: op.fieldEfficiencyPercent!,

@@ -1,7 +1,12 @@
-import type { PlanDocument, PlanDocumentInput } from '$lib/schemas/plan-file';
+import {
+	currentFormatVersion,
+	type PlanDocument,
+	type PlanDocumentInput
+} from '$lib/schemas/plan-file';
 import { insertAuditEntry } from './audit';
 import type { Db, Tx } from './client';
 import { exportCropPractices, insertCropPractices } from './crop-practices';
+import { exportCrops, insertCrops } from './crops';
 import { farmSettingsOf } from './farms';
 import { exportFieldOperations, insertFieldOperations } from './field-operations';
 import { insertFields } from './fields';
@@ -11,7 +16,7 @@ import { exportPriceSets, insertPriceSets } from './price-sets';
 import { exportRotations, insertRotations } from './rotations';
 
 /**
- * Saves a validated plan document into a farm: its fields, herd, prices, operations, practices and
+ * Saves a validated plan document into a farm: its crops, fields, herd, prices, operations, practices and
  * rotations, then the plan as version 1. Parts the farm already has under the same id are kept as they
  * are, so several plan files of one farm share them. Runs inside the caller's transaction.
  */
@@ -24,6 +29,7 @@ export async function importPlanDocument(
 		isReference
 	}: { farmId: string; userId: string | null; doc: PlanDocument; isReference: boolean }
 ) {
+	await insertCrops(tx, farmId, doc.crops);
 	const fieldIds = await insertFields(tx, farmId, doc.fields);
 	if (doc.herd) await insertHerd(tx, farmId, doc.herd);
 	await insertPriceSets(tx, farmId, doc.priceSets);
@@ -68,7 +74,8 @@ export async function exportPlanDocument(db: Db | Tx, planId: string): Promise<P
 		a.field.key.localeCompare(b.field.key)
 	);
 	const years = Array.from({ length: version.years }, (_, i) => version.startYear + i);
-	const [operations, practices, rotations, priceSets] = await Promise.all([
+	const [crops, operations, practices, rotations, priceSets] = await Promise.all([
+		exportCrops(db, farm.id),
 		exportFieldOperations(db, farm.id),
 		exportCropPractices(db, farm.id),
 		exportRotations(db, farm.id),
@@ -77,9 +84,10 @@ export async function exportPlanDocument(db: Db | Tx, planId: string): Promise<P
 
 	const { id: _farmId, ...settings } = farmSettingsOf(farm);
 	return {
-		formatVersion: 1,
+		formatVersion: currentFormatVersion,
 		notes: version.notes,
 		farm: settings,
+		crops,
 		fields: assignments.map(({ field }) => ({
 			id: field.key,
 			name: field.name,

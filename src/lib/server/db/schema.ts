@@ -2,6 +2,7 @@
 // `db/schema` read it. Each aggregate's tables sit with their relations in schema/.
 export * from './schema/auth';
 export * from './schema/farms';
+export * from './schema/crops';
 export * from './schema/fields';
 export * from './schema/herds';
 export * from './schema/prices';

@@ -13,7 +13,9 @@ import {
 } from 'drizzle-orm/pg-core';
 import { farmRoles } from '../../../roles';
 import { users } from './auth';
+import { unitSystems } from '../../../unit-systems';
 import { timestamps } from './columns';
+import { crops } from './crops';
 import { fieldOperations } from './operations';
 import { fields } from './fields';
 import { herds } from './herds';
@@ -23,7 +25,7 @@ import { priceSets } from './prices';
 import { rotations } from './rotations';
 
 export const farmRole = pgEnum('farm_role', farmRoles);
-export const unitSystem = pgEnum('unit_system', ['us', 'metric']);
+export const unitSystem = pgEnum('unit_system', unitSystems);
 
 export const farms = pgTable('farms', {
 	id: uuid().primaryKey().defaultRandom(),
@@ -51,6 +53,7 @@ export function farmReference() {
 
 export const farmsRelations = relations(farms, ({ many }) => ({
 	memberships: many(memberships),
+	crops: many(crops),
 	fields: many(fields),
 	herds: many(herds),
 	priceSets: many(priceSets),

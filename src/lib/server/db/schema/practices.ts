@@ -10,7 +10,7 @@ import {
 	uniqueIndex,
 	uuid
 } from 'drizzle-orm/pg-core';
-import type { Crop, CropPractice } from '../../../schemas/plan-file';
+import type { CropPractice } from '../../../schemas/plan-file';
 import { timestamps } from './columns';
 import { farmReference, farms } from './farms';
 import { fieldOperations } from './operations';
@@ -36,8 +36,9 @@ export const cropPractices = pgTable(
 		farmId: farmReference(),
 		key: text().notNull(),
 		name: text().notNull(),
-		crop: text().$type<Crop>().notNull(),
-		/** bu/ac for grains, tons/ac for forages. */
+		/** The crop's id (`crops.key`): a built-in or one of the farm's own. */
+		crop: text().notNull(),
+		/** Per acre in the crop's sale unit. */
 		yieldGoalPerAcre: numeric({ mode: 'number', precision: 10, scale: 2 }).notNull(),
 		otherFertiliserUsdPerAcre: numeric({ mode: 'number', precision: 8, scale: 2 }).notNull(),
 		chemicalsUsdPerAcre: numeric({ mode: 'number', precision: 8, scale: 2 }).notNull(),

@@ -1,5 +1,5 @@
 import { json } from '@sveltejs/kit';
-import { evaluatePlan, referenceHorizonIssues } from '$lib/engine';
+import { evaluatePlan, NonFiniteResultError, referenceHorizonIssues } from '$lib/engine';
 import type { FieldIssue } from '$lib/schemas/issues';
 import { parsePlanDocument } from '$lib/schemas/plan-file';
 import { readJson } from '$lib/server/api';
@@ -29,7 +29,15 @@ export const POST: RequestHandler = async (event) => {
 	if (issues.length || !plan.ok || (reference && !reference.ok)) {
 		return json({ message: 'The plan document is not valid.', issues }, { status: 422 });
 	}
-	return json(evaluatePlan(plan.plan, reference?.plan));
+	try {
+		return json(evaluatePlan(plan.plan, reference?.plan));
+	} catch (error) {
+		if (!(error instanceof NonFiniteResultError)) throw error;
+		return json(
+			{ message: 'The plan gives a result that is not a number.', issues: error.issues },
+			{ status: 422 }
+		);
+	}
 };
 
 function splitBody(body: unknown) {

@@ -1,8 +1,8 @@
-import { cropSchema } from '$lib/schemas/plan-file';
 import { requireFarmAccess } from '$lib/server/auth/access';
 import { displayUnits } from '$lib/server/display-units';
 import { db } from '$lib/server/db';
 import { listCropPracticesByFarm } from '$lib/server/db/crop-practices';
+import { listCropsByFarm } from '$lib/server/db/crops';
 import { listFieldOperationsByFarm } from '$lib/server/db/field-operations';
 import { listFieldsByFarm } from '$lib/server/db/fields';
 import { findHerdByFarm } from '$lib/server/db/herds';
@@ -14,16 +14,20 @@ import type { PageServerLoad } from './$types';
 // Amounts and prices are in the farm's shown units: `…PerArea` is $/ac or $/ha as `units.area` says.
 export const load = (async (event) => {
 	const { farm } = await requireFarmAccess(event, event.params.farmId, 'farm:view');
-	const [fields, herd, priceSets, operations, practices, rotations, plans] = await Promise.all([
-		listFieldsByFarm(db, farm.id),
-		findHerdByFarm(db, farm.id),
-		listPriceSetsByFarm(db, farm.id),
-		listFieldOperationsByFarm(db, farm.id),
-		listCropPracticesByFarm(db, farm.id),
-		listRotationsByFarm(db, farm.id),
-		listPlansByFarm(db, farm.id)
-	]);
+	const [crops, fields, herd, priceSets, operations, practices, rotations, plans] =
+		await Promise.all([
+			listCropsByFarm(db, farm.id),
+			listFieldsByFarm(db, farm.id),
+			findHerdByFarm(db, farm.id),
+			listPriceSetsByFarm(db, farm.id),
+			listFieldOperationsByFarm(db, farm.id),
+			listCropPracticesByFarm(db, farm.id),
+			listRotationsByFarm(db, farm.id),
+			listPlansByFarm(db, farm.id)
+		]);
 	const show = displayUnits(farm.unitSystem);
+	// Every crop a price or practice names is one of the farm's crops (imports write them first).
+	const cropById = new Map(crops.map((crop) => [crop.id, crop]));
 	return {
 		farm: { id: farm.id, name: farm.name },
 		units: {
@@ -61,10 +65,10 @@ export const load = (async (event) => {
 			dieselUsdPerVolume: show.pricePer(set.dieselUsdPerGallon, 'volume'),
 			labourUsdPerHour: set.labourUsdPerHour,
 			hayUsdPerBale: set.hayUsdPerBale,
-			cropPrices: set.items.map((item) => ({
-				crop: item.key,
-				...show.cropPrice(item.priceUsd, cropSchema.parse(item.key))
-			}))
+			cropPrices: set.items.flatMap((item) => {
+				const crop = cropById.get(item.key);
+				return crop ? [{ crop: crop.name, ...show.cropPrice(item.priceUsd, crop) }] : [];
+			})
 		})),
 		operations: operations.map((op) => ({
 			id: op.id,
@@ -76,14 +80,20 @@ export const load = (async (event) => {
 			fieldEfficiencyPercent: op.fieldEfficiencyPercent,
 			repairsUsdPerArea: show.pricePer(op.repairsUsdPerAcre, 'area')
 		})),
-		practices: practices.map((practice) => ({
-			id: practice.id,
-			name: practice.name,
-			crop: practice.crop,
-			yieldGoal: show.yieldPerArea(practice.yieldGoalPerAcre, practice.crop),
-			chemicalsUsdPerArea: show.pricePer(practice.chemicalsUsdPerAcre, 'area'),
-			otherFertiliserUsdPerArea: show.pricePer(practice.otherFertiliserUsdPerAcre, 'area')
-		})),
+		practices: practices.flatMap((practice) => {
+			const crop = cropById.get(practice.crop);
+			if (!crop) return [];
+			return [
+				{
+					id: practice.id,
+					name: practice.name,
+					crop: crop.name,
+					yieldGoal: show.yieldPerArea(practice.yieldGoalPerAcre, crop),
+					chemicalsUsdPerArea: show.pricePer(practice.chemicalsUsdPerAcre, 'area'),
+					otherFertiliserUsdPerArea: show.pricePer(practice.otherFertiliserUsdPerAcre, 'area')
+				}
+			];
+		}),
 		rotations,
 		plans
 	};

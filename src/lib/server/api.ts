@@ -20,8 +20,9 @@ export async function readJson(
 	try {
 		return { ok: true, body: await request.json() };
 	} catch (err) {
-		if (!isTooLarge(err))
+		if (!isTooLarge(err)) {
 			return refuse(400, 'The request body is not valid JSON.', 'Send a JSON document.');
+		}
 		const limit = limitBytes(err.message);
 		const size =
 			limit === undefined ? 'than this server accepts' : `than the ${formatKb(limit)} limit`;

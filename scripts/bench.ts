@@ -1,8 +1,8 @@
 /**
  * Engine speed and memory: `npm run bench`. Evaluates a generated 100-field, 5-year plan that uses
  * every demo rotation, many times, and reports the median time per evaluation and the peak memory.
- * Exits 1 when a target is missed: under 5 ms per evaluation of a validated plan, under 20 ms with
- * validation.
+ * Exits 1 when a target is missed: under 5 ms per evaluation of a validated plan, under 4 ms with a
+ * partial budget against a reference whose fields mostly grow another crop, under 20 ms with validation.
  */
 import { readFileSync } from 'node:fs';
 import { performance } from 'node:perf_hooks';
@@ -12,7 +12,7 @@ import { parsePlanDocument, type PlanDocument } from '../src/lib/schemas/plan-fi
 const fieldCount = 100;
 const runs = 300;
 const warmUpRuns = 30;
-const targetsMs = { evaluate: 5, parseAndEvaluate: 20 };
+const targetsMs = { evaluate: 5, partialBudget: 4, parseAndEvaluate: 20 };
 
 type PlanJson = {
 	fields: Record<string, unknown>[];
@@ -60,6 +60,12 @@ function generatedPlan(): PlanJson {
 	return doc;
 }
 
+function rotationLengthById(doc: PlanJson): Map<string, number> {
+	return new Map(
+		doc.rotations.map((r) => [r.id, (r as unknown as { practices: string[] }).practices.length])
+	);
+}
+
 function validated(json: unknown): PlanDocument {
 	const parsed = parsePlanDocument(json);
 	if (!parsed.ok) throw new Error(`generated plan is invalid: ${JSON.stringify(parsed.issues)}`);
@@ -83,10 +89,16 @@ function medianMs(work: () => unknown): number {
 
 const json = generatedPlan();
 const plan = validated(json);
-const referenceFor100 = validated({
-	...structuredClone(json),
-	plan: { ...json.plan, name: 'Bench reference' }
+// Each field one phase on in its rotation: most fields change crop, so their lines are gross.
+const referenceJson = structuredClone(json);
+referenceJson.plan.name = 'Bench reference';
+referenceJson.plan.fieldRotations = (
+	referenceJson.plan.fieldRotations as { rotationId: string; startingPhase: number }[]
+).map((a) => {
+	const length = rotationLengthById(json).get(a.rotationId)!;
+	return { ...a, startingPhase: (a.startingPhase % length) + 1 };
 });
+const referenceFor100 = validated(referenceJson);
 const fieldYears = evaluatePlan(plan).fieldYears.length;
 
 const rows = [
@@ -98,7 +110,7 @@ const rows = [
 	{
 		what: 'evaluate + partial budget',
 		ms: medianMs(() => evaluatePlan(plan, referenceFor100)),
-		target: null
+		target: targetsMs.partialBudget
 	},
 	{
 		what: 'validate + evaluate',

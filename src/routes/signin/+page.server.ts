@@ -5,16 +5,26 @@ import { toFieldErrors } from '$lib/schemas/issues';
 import { signIn } from '$lib/server/auth/auth';
 import type { Actions, PageServerLoad } from './$types';
 
-const failureMessages: Record<string, string> = {
-	throttled: 'Too many failed attempts. Wait 15 minutes, then try again.',
-	credentials: 'That e-mail and password do not match an account.'
-};
+const noMatch = { status: 400, message: 'That e-mail and password do not match an account.' };
+// By the code of the refusal; the code also arrives in the URL, so a Map, not an object's keys.
+const failures = new Map([
+	['credentials', noMatch],
+	[
+		'throttled',
+		{ status: 429, message: 'Too many failed attempts. Wait 15 minutes, then try again.' }
+	],
+	[
+		'unavailable',
+		{ status: 503, message: 'Sign-in is unavailable right now. Try again in a few minutes.' }
+	]
+]);
+const failureOf = (code: string | null) => failures.get(code ?? '') ?? noMatch;
 
 export const load = (({ locals, url }) => {
 	const redirectTo = safeRedirect(url.searchParams.get('redirectTo'));
 	if (locals.user) redirect(303, redirectTo);
 	const failure = url.searchParams.get('error')
-		? (failureMessages[url.searchParams.get('code') ?? ''] ?? failureMessages.credentials)
+		? failureOf(url.searchParams.get('code')).message
 		: null;
 	return { redirectTo, failure };
 }) satisfies PageServerLoad;
@@ -36,11 +46,11 @@ export const actions = {
 		} catch (err) {
 			// Auth.js throws a refused sign-in; its redirect on success passes through.
 			if (!(err instanceof CredentialsSignin)) throw err;
-			const failure = failureMessages[err.code] ?? failureMessages.credentials;
-			return fail(err.code === 'throttled' ? 429 : 400, {
+			const { status, message } = failureOf(err.code);
+			return fail(status, {
 				email: parsed.data.email,
 				errors: {} as Record<string, string>,
-				failure
+				failure: message
 			});
 		}
 	}

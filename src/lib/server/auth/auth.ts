@@ -2,15 +2,13 @@ import { SvelteKitAuth, CredentialsSignin } from '@auth/sveltekit';
 import { DrizzleAdapter } from '@auth/drizzle-adapter';
 import Credentials from '@auth/sveltekit/providers/credentials';
 import { signInSchema } from '$lib/schemas/account';
-import { db } from '$lib/server/db';
+import { db, pool } from '$lib/server/db';
 import { accounts, sessions, users, verificationTokens } from '$lib/server/db/schema';
 import { findUserByEmail } from '$lib/server/db/users';
 import { verifyPassword } from './password';
-import { clearFailedSignIns, recordFailedSignIn, secondsUntilNextAttempt } from './sign-in-limiter';
+import { limitedSignIn, postgresFailedSignIns } from './sign-in-limiter';
 
-class TooManyAttempts extends CredentialsSignin {
-	code = 'throttled';
-}
+const failedSignIns = postgresFailedSignIns(pool);
 
 export const { handle, signIn, signOut } = SvelteKitAuth(async (event) => ({
 	adapter: DrizzleAdapter(db, {
@@ -36,15 +34,13 @@ export const { handle, signIn, signOut } = SvelteKitAuth(async (event) => ({
 				const parsed = signInSchema.safeParse(input);
 				if (!parsed.success) return null;
 				const { email, password } = parsed.data;
-				const address = event.getClientAddress();
-				if ((await secondsUntilNextAttempt(email, address)) > 0) throw new TooManyAttempts();
-				const user = await findUserByEmail(db, email);
-				if (!user?.passwordHash || !(await verifyPassword(user.passwordHash, password))) {
-					await recordFailedSignIn(email, address);
-					return null;
-				}
-				await clearFailedSignIns(email, address);
-				return { id: user.id, email: user.email, name: user.name };
+				return limitedSignIn(failedSignIns, email, event.getClientAddress(), async () => {
+					const user = await findUserByEmail(db, email);
+					if (!user?.passwordHash || !(await verifyPassword(user.passwordHash, password))) {
+						return null;
+					}
+					return { id: user.id, email: user.email, name: user.name };
+				});
 			}
 		})
 	],

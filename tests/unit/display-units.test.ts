@@ -38,11 +38,19 @@ describe('showing stored US values in the farm’s units', () => {
 		// 60-lb soybean: 67.25 kg/ha per bu/ac
 		expect(metric.yieldPerArea(58, crop('soybean')).value).toBeCloseTo(3.9, 2);
 		// Minnesota shippers table: 1 bu corn = 0.025401 t, so $4.40/bu = $173.22/t
-		expect(metric.cropPrice(4.4, crop('corn'))).toEqual({ value: expect.closeTo(173.22, 2), unit: 't' });
+		expect(metric.cropPrice(4.4, crop('corn'))).toEqual({
+			value: expect.closeTo(173.22, 2),
+			unit: 't'
+		});
 		// NDSU card: 1 ton/ac = 2.2417 t/ha
 		expect(metric.yieldPerArea(3, crop('oat-pea-forage')).value).toBeCloseTo(6.725, 3);
 		// a crop of one's own sold by the hundredweight: 20 cwt/ac = 2,000 lb/ac × 1.12085 = 2,241.7 kg/ha
-		const dryBeans = { ...crop('soybean'), id: 'dry-beans', soldBy: 'cwt' as const, lbPerUnit: 100 };
+		const dryBeans = {
+			...crop('soybean'),
+			id: 'dry-beans',
+			soldBy: 'cwt' as const,
+			lbPerUnit: 100
+		};
 		expect(metric.yieldPerArea(20, dryBeans).value).toBeCloseTo(2.2417, 4);
 		expect(us.yieldPerArea(20, dryBeans).unit).toBe('cwt/ac');
 	});

@@ -2,39 +2,13 @@ import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { evaluatePlan } from '../../src/lib/engine';
 import { seedsPerFootOfRow } from '../../src/lib/engine/field-year';
-import {
-	parsePlanDocument,
-	type PlanDocument,
-	type PlanDocumentInput
-} from '../../src/lib/schemas/plan-file';
-import { smallPlanInput } from './fixtures';
+import { parsePlanDocument, type PlanDocument } from '../../src/lib/schemas/plan-file';
+import { oneCornFieldInput, smallPlanInput } from './fixtures';
 
 function parse(input: unknown): PlanDocument {
 	const result = parsePlanDocument(input);
 	if (!result.ok) throw new Error(JSON.stringify(result.issues));
 	return result.plan;
-}
-
-/** One 100-acre field of continuous corn, no herd, no costs: a clean base for worked examples. */
-function oneCornField(): PlanDocumentInput {
-	const input = smallPlanInput();
-	input.fields = [{ id: 'home', name: 'Home', acres: 100 }];
-	input.herd = null;
-	input.farm.interestRatePercent = 0;
-	input.practices = [
-		{
-			id: 'corn',
-			name: 'Corn',
-			crop: 'corn',
-			yieldGoalPerAcre: 180,
-			otherFertiliserUsdPerAcre: 0,
-			chemicalsUsdPerAcre: 0,
-			operatingInterestMonths: 0
-		}
-	];
-	input.rotations = [{ id: 'cc', name: 'Continuous corn', practices: ['corn'] }];
-	input.plan.fieldRotations = [{ fieldId: 'home', rotationId: 'cc' }];
-	return input;
 }
 
 describe('a published worked example as a plan file', () => {
@@ -52,7 +26,7 @@ describe('a published worked example as a plan file', () => {
 
 describe('economic optimum N through a plan', () => {
 	it('buys the EONR less credits and yields 182.5 bu/ac', () => {
-		const input = oneCornField();
+		const input = oneCornFieldInput();
 		// REFERENCE-VALUES §4b synthetic: Y = 100 + 1.0 N − 0.003 N², plateau 183.33 bu/ac; R = 0.40/4.00 = 0.10
 		input.practices[0].yieldGoalPerAcre = 100 + 1 / (4 * 0.003);
 		input.practices[0].nitrogen = {
@@ -79,7 +53,7 @@ describe('economic optimum N through a plan', () => {
 
 describe('legume cover credit carried to the next crop', () => {
 	it('credits 52.5 lb N/ac after 3,000 lb of vetch and cuts the N bought by as much', () => {
-		const input = oneCornField();
+		const input = oneCornFieldInput();
 		input.practices[0].nitrogen = {
 			appliedLbPerAcre: 'economic-optimum',
 			response: { interceptBuPerAcre: 100, linearBuPerLbN: 1.0, quadraticBuPerLbN2: 0.003 }
@@ -91,6 +65,7 @@ describe('legume cover credit carried to the next crop', () => {
 			legumeNitrogenPercent: 3.5,
 			nitrogenAvailablePercent: 50
 		};
+		for (const set of input.priceSets) set.seedPrices = { rye: { usdPerLb: 0.3 } };
 		const [first, second] = evaluatePlan(parse(input)).fieldYears;
 		// SARE MCCP arithmetic: 3,000 lb × 3.5 % ÷ 2 = 52.5 lb N/ac, credited the year after the cover
 		expect(first.nitrogen.coverCreditLbPerAcre).toBe(0);
@@ -101,8 +76,8 @@ describe('legume cover credit carried to the next crop', () => {
 
 describe('partial budget', () => {
 	it('adds $20.60/ac for drilling a rye cover at 30 lb of $0.25 seed', () => {
-		const reference = parse(oneCornField());
-		const input = oneCornField();
+		const reference = parse(oneCornFieldInput());
+		const input = oneCornFieldInput();
 		input.operations!.push({
 			id: 'drill-rye',
 			name: 'Drill rye (custom)',
@@ -143,7 +118,7 @@ describe('partial budget', () => {
 	});
 
 	it('counts $3,000 of hay saved, $30/ac, when the herd grazes 100 acres of stalks for 30 days', () => {
-		const input = oneCornField();
+		const input = oneCornFieldInput();
 		// 80 AU × 22 lb DM = 1,760 lb DM/day = two 1,000 lb bales at 88 % DM a day; hay $50 a bale
 		input.herd = {
 			head: 80,
@@ -209,7 +184,11 @@ describe('partial budget', () => {
 		}
 		const dieselLines = (y: number) =>
 			budget.years[y].lines.addedCosts.filter((l) => l.category === 'diesel');
-		expect(dieselLines(1).map((l) => l.item).sort()).toEqual(['Corn: diesel', 'Soybean: diesel']);
+		expect(
+			dieselLines(1)
+				.map((l) => l.item)
+				.sort()
+		).toEqual(['Corn: diesel', 'Soybean: diesel']);
 		expect(dieselLines(0)).toEqual([]);
 		const meanNet = (budget.years[0].netChangeUsd + budget.years[1].netChangeUsd) / 2;
 		expect(budget.average.netChangeUsd).toBeCloseTo(meanNet, 6);

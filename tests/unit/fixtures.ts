@@ -123,3 +123,32 @@ export function smallPlanInput(): PlanDocumentInput {
 		}
 	};
 }
+
+/** One 100-acre field of continuous corn, no herd, no operations, no interest or fixed costs: a clean
+ * base for worked examples (invented numbers). */
+export function oneCornFieldInput(): PlanDocumentInput {
+	const input = smallPlanInput();
+	input.fields = [{ id: 'home', name: 'Home', acres: 100 }];
+	input.herd = null;
+	input.farm.interestRatePercent = 0;
+	input.farm.fixedCostsUsdPerYear = 0;
+	input.operations = [];
+	input.practices = [
+		{
+			id: 'corn',
+			name: 'Corn',
+			crop: 'corn',
+			yieldGoalPerAcre: 180,
+			otherFertiliserUsdPerAcre: 0,
+			chemicalsUsdPerAcre: 0,
+			operatingInterestMonths: 0
+		}
+	];
+	input.rotations = [{ id: 'cc', name: 'Continuous corn', practices: ['corn'] }];
+	input.plan.fieldRotations = [{ fieldId: 'home', rotationId: 'cc' }];
+	for (const set of input.priceSets) {
+		set.seedPrices = {};
+		set.customRatesUsdPerAcre = {};
+	}
+	return input;
+}

@@ -1,12 +1,8 @@
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { evaluatePlan } from '../../src/lib/engine';
-import {
-	parsePlanDocument,
-	type PlanDocument,
-	type PlanDocumentInput
-} from '../../src/lib/schemas/plan-file';
-import { smallPlanInput } from './fixtures';
+import { parsePlanDocument, type PlanDocument } from '../../src/lib/schemas/plan-file';
+import { oneCornFieldInput, smallPlanInput } from './fixtures';
 
 function parse(input: unknown): PlanDocument {
 	const result = parsePlanDocument(input);
@@ -19,37 +15,9 @@ function issuesOf(input: unknown) {
 	return result.ok ? [] : result.issues;
 }
 
-/** One 100-acre field, no herd, no interest: a clean base for worked examples (invented numbers). */
-function oneField(): PlanDocumentInput {
-	const input = smallPlanInput();
-	input.fields = [{ id: 'home', name: 'Home', acres: 100 }];
-	input.herd = null;
-	input.farm.interestRatePercent = 0;
-	input.farm.fixedCostsUsdPerYear = 0;
-	input.operations = [];
-	input.practices = [
-		{
-			id: 'corn',
-			name: 'Corn',
-			crop: 'corn',
-			yieldGoalPerAcre: 180,
-			otherFertiliserUsdPerAcre: 0,
-			chemicalsUsdPerAcre: 0,
-			operatingInterestMonths: 0
-		}
-	];
-	input.rotations = [{ id: 'cc', name: 'Continuous corn', practices: ['corn'] }];
-	input.plan.fieldRotations = [{ fieldId: 'home', rotationId: 'cc' }];
-	for (const set of input.priceSets) {
-		set.seedPrices = {};
-		set.customRatesUsdPerAcre = {};
-	}
-	return input;
-}
-
 describe('crops of a farm’s own', () => {
 	it('prices and names dry beans sold by the hundredweight from the crop list', () => {
-		const input = oneField();
+		const input = oneCornFieldInput();
 		input.crops = [{ id: 'dry-beans', name: 'Dry edible beans', soldBy: 'cwt', legume: true }];
 		input.practices[0] = {
 			...input.practices[0],
@@ -71,7 +39,7 @@ describe('crops of a farm’s own', () => {
 	});
 
 	it('needs no crop list for the built-in eight, and a listed crop replaces a built-in', () => {
-		expect(parse(oneField()).crops.map((c) => c.id)).toEqual([
+		expect(parse(oneCornFieldInput()).crops.map((c) => c.id)).toEqual([
 			'corn',
 			'soybean',
 			'wheat',
@@ -81,14 +49,14 @@ describe('crops of a farm’s own', () => {
 			'oat-pea-forage',
 			'hay'
 		]);
-		const input = oneField();
+		const input = oneCornFieldInput();
 		input.crops = [{ id: 'corn', name: 'Flint corn', soldBy: 'bu', lbPerUnit: 56 }];
 		const [fy] = evaluatePlan(parse(input)).fieldYears;
 		expect(fy.cropName).toBe('Flint corn');
 	});
 
 	it('refuses a bushel crop without its weight, a wrong fixed weight and a reserved id', () => {
-		const input = oneField();
+		const input = oneCornFieldInput();
 		input.crops = [
 			{ id: 'flax', name: 'Flax', soldBy: 'bu' },
 			{ id: 'alfalfa', name: 'Alfalfa', soldBy: 'ton', lbPerUnit: 1000 },
@@ -104,13 +72,13 @@ describe('crops of a farm’s own', () => {
 	});
 
 	it('refuses an unknown crop and a missing price, naming the crop by its name', () => {
-		const input = oneField();
+		const input = oneCornFieldInput();
 		input.practices[0].crop = 'buckwheat';
 		expect(issuesOf(input)).toContainEqual({
 			path: 'practices.0.crop',
 			message: expect.stringMatching(/Unknown crop "buckwheat"/)
 		});
-		const noPrice = oneField();
+		const noPrice = oneCornFieldInput();
 		noPrice.crops = [{ id: 'buckwheat', name: 'Buckwheat', soldBy: 'bu', lbPerUnit: 48 }];
 		noPrice.practices[0].crop = 'buckwheat';
 		expect(issuesOf(noPrice)).toContainEqual({
@@ -120,7 +88,7 @@ describe('crops of a farm’s own', () => {
 	});
 
 	it('grazes a residue only where the crop or the practice states its leaf and husk', () => {
-		const input = oneField();
+		const input = oneCornFieldInput();
 		input.herd = smallPlanInput().herd;
 		input.practices[0].crop = 'wheat';
 		input.practices[0].residueGrazing = {};
@@ -140,11 +108,11 @@ describe('partial budget by enterprise when one crop replaces another', () => {
 	// enterprise is replaced, all of its returns are reduced returns and all of its costs reduced costs,
 	// and the new enterprise's returns and costs are added in full. Numbers invented for the check.
 	function switchToSoybean() {
-		const reference = oneField();
+		const reference = oneCornFieldInput();
 		reference.practices[0].seed = { seedId: 'corn-seed', seedsPerAcre: 32000 };
 		reference.practices[0].chemicalsUsdPerAcre = 50;
 		reference.practices[0].nitrogen = { appliedLbPerAcre: 150 };
-		const plan = oneField();
+		const plan = oneCornFieldInput();
 		plan.practices[0] = {
 			id: 'soy',
 			name: 'Soybean',
@@ -198,7 +166,7 @@ describe('partial budget by enterprise when one crop replaces another', () => {
 
 describe('own operations stated by published per-acre rates', () => {
 	it('gives exactly the published gallons of a no-till corn system and no invented hours', () => {
-		const input = oneField();
+		const input = oneCornFieldInput();
 		// Univ. of Missouri G1208: anhydrous applicator 0.65, no-till planter 0.35 gal/ac;
 		// UNL CropWatch: spraying 0.11 gal/ac a pass; Purdue (Dobbins 2006): combining corn 2.4 gal/ac
 		const passes: [string, number, number][] = [
@@ -231,7 +199,7 @@ describe('own operations stated by published per-acre rates', () => {
 	});
 
 	it('takes stated machine and labour hours per acre as they are', () => {
-		const input = oneField();
+		const input = oneCornFieldInput();
 		input.operations = [
 			{
 				id: 'drill',
@@ -256,7 +224,7 @@ describe('own operations stated by published per-acre rates', () => {
 describe('economic optimum N on the field’s own yield curve', () => {
 	// REFERENCE-VALUES §4b synthetic curve Y = 100 + 1.0 N − 0.003 N², plateau 183.33 bu/ac, price ratio 0.10
 	function field(productivityIndex: number, applied: number | 'economic-optimum') {
-		const input = oneField();
+		const input = oneCornFieldInput();
 		input.fields[0].productivityIndex = productivityIndex;
 		input.practices[0].yieldGoalPerAcre = 100 + 1 / (4 * 0.003);
 		input.practices[0].nitrogen = {
@@ -286,7 +254,7 @@ describe('economic optimum N on the field’s own yield curve', () => {
 
 describe('N credits follow the forage eaten', () => {
 	function grazedCover(head: number) {
-		const input = oneField();
+		const input = oneCornFieldInput();
 		input.herd = {
 			...smallPlanInput().herd!,
 			head,

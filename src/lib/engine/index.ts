@@ -40,7 +40,8 @@ function planYears(plan: PlanDocument): number[] {
 	return Array.from({ length: years }, (_, i) => startYear + i);
 }
 
-function evaluateYears(plan: PlanDocument) {
+/** Every field-year and farm-year; with `budgeted`, also each year's items for a partial budget. */
+function evaluateYears(plan: PlanDocument, budgeted: boolean) {
 	const practiceById = new Map(plan.practices.map((p) => [p.id, p]));
 	const rotationById = new Map(plan.rotations.map((r) => [r.id, r]));
 	const operationsById = new Map(plan.operations.map((o) => [o.id, o]));
@@ -93,7 +94,7 @@ function evaluateYears(plan: PlanDocument) {
 		});
 		fieldYears.push(...thisYear);
 		farmYears.push(farmYear);
-		items.push({ year, items: yearItems(thisYear, farmYear) });
+		if (budgeted) items.push({ year, items: yearItems(thisYear, farmYear) });
 	}
 	return { fieldYears, farmYears, items };
 }
@@ -122,7 +123,7 @@ export class NonFiniteResultError extends Error {
  * rather than answer a number that is not finite.
  */
 export function evaluatePlan(plan: PlanDocument, reference?: PlanDocument): PlanResult {
-	const { fieldYears, farmYears, items } = evaluateYears(plan);
+	const { fieldYears, farmYears, items } = evaluateYears(plan, reference !== undefined);
 	const acres = plan.fields.reduce((sum, f) => sum + f.acres, 0);
 	const result: PlanResult = {
 		formatVersion: 2,
@@ -143,7 +144,9 @@ export function evaluatePlan(plan: PlanDocument, reference?: PlanDocument): Plan
 	if (reference) {
 		const mismatch = referenceHorizonIssues(plan, reference);
 		if (mismatch.length) throw new Error(mismatch.map((m) => m.message).join('; '));
-		const referenceItems = new Map(evaluateYears(reference).items.map((y) => [y.year, y.items]));
+		const referenceItems = new Map(
+			evaluateYears(reference, true).items.map((y) => [y.year, y.items])
+		);
 		result.partialBudget = partialBudget(reference.plan.name, acres, items, referenceItems);
 	}
 	const bad = nonFiniteNumberPaths(result);

@@ -37,7 +37,7 @@ export interface PartialBudget {
 	average: Omit<PartialBudgetYear, 'year'>;
 }
 
-/** Categories of return and cost, each with the words a line prints. */
+/** Categories of return and cost, each with the words a line prints; `sales` is the one return. */
 const categoryWords = {
 	sales: 'sales',
 	seed: 'seed',
@@ -56,16 +56,19 @@ const categoryWords = {
 	'fixed-costs': 'fixed costs'
 } as const;
 export type Category = keyof typeof categoryWords;
-const categoryText = new Map<Category, string>(
-	Object.entries(categoryWords) as [Category, string][]
-);
+const categories = Object.keys(categoryWords) as Category[];
+const words = Object.values(categoryWords) as string[];
+const categoryCount = categories.length;
+// Amounts are kept in arrays indexed by category: a 100-field plan compares thousands of them.
+const salesIndex = categories.indexOf('sales');
+const at = new Map(categories.map((c, i) => [c, i]));
+const index = (category: Category) => at.get(category)!;
 
-/** What one enterprise on one field (or the herd, or the farm) earns and spends in a year. */
+/** What one enterprise on one field (or the herd, or the farm) earns and spends in a year, by category. */
 interface EnterpriseYear {
 	enterprise: string;
 	name: string;
-	returns: [Category, number][];
-	costs: [Category, number][];
+	amounts: Float64Array;
 }
 
 /** One plan-year, ready to compare: each field's crop, the herd and the farm's fixed costs. */
@@ -75,47 +78,64 @@ export interface YearItems {
 	farm: EnterpriseYear;
 }
 
+function enterpriseYear(enterprise: string, name: string, amounts: [Category, number][]) {
+	const year: EnterpriseYear = { enterprise, name, amounts: new Float64Array(categoryCount) };
+	for (const [category, usd] of amounts) year.amounts[index(category)] = usd;
+	return year;
+}
+
+// Where a field-year's amounts go, in the order `fieldAmounts` writes them.
+const fieldCategoryIndexes = (
+	[
+		'sales',
+		'seed',
+		'nitrogen',
+		'other-fertiliser',
+		'chemicals',
+		'other-direct',
+		'cover-seed',
+		'custom-hire',
+		'operating-interest',
+		'diesel',
+		'repairs',
+		'field-labour'
+	] as const
+).map(index);
+
+function fieldAmounts(fy: FieldYearResult): Float64Array {
+	const d = fy.directCosts;
+	const o = fy.operationCosts;
+	const values = [
+		fy.revenueUsd,
+		d.seedUsd,
+		d.nitrogenUsd,
+		d.otherFertiliserUsd,
+		d.chemicalsUsd,
+		d.otherDirectUsd,
+		d.coverSeedUsd,
+		d.customHireUsd,
+		d.operatingInterestUsd,
+		o.fuelUsd,
+		o.repairsUsd,
+		o.labourUsd
+	];
+	const amounts = new Float64Array(categoryCount);
+	for (let k = 0; k < values.length; k++) amounts[fieldCategoryIndexes[k]] = values[k];
+	return amounts;
+}
+
 export function yearItems(fieldYears: FieldYearResult[], farmYear: FarmYearResult): YearItems {
 	const fields = new Map<string, EnterpriseYear>();
 	for (const fy of fieldYears) {
-		const d = fy.directCosts;
-		const o = fy.operationCosts;
-		fields.set(fy.fieldId, {
-			enterprise: fy.crop,
-			name: fy.cropName,
-			returns: [['sales', fy.revenueUsd]],
-			costs: [
-				['seed', d.seedUsd],
-				['nitrogen', d.nitrogenUsd],
-				['other-fertiliser', d.otherFertiliserUsd],
-				['chemicals', d.chemicalsUsd],
-				['other-direct', d.otherDirectUsd],
-				['cover-seed', d.coverSeedUsd],
-				['custom-hire', d.customHireUsd],
-				['operating-interest', d.operatingInterestUsd],
-				['diesel', o.fuelUsd],
-				['repairs', o.repairsUsd],
-				['field-labour', o.labourUsd]
-			]
-		});
+		fields.set(fy.fieldId, { enterprise: fy.crop, name: fy.cropName, amounts: fieldAmounts(fy) });
 	}
 	return {
 		fields,
-		herd: {
-			enterprise: 'herd',
-			name: 'Herd',
-			returns: [],
-			costs: [
-				['hay', farmYear.hayCostUsd],
-				['chore-labour', farmYear.choreLabourUsd]
-			]
-		},
-		farm: {
-			enterprise: 'farm',
-			name: 'Whole farm',
-			returns: [],
-			costs: [['fixed-costs', farmYear.fixedCostsUsd]]
-		}
+		herd: enterpriseYear('herd', 'Herd', [
+			['hay', farmYear.hayCostUsd],
+			['chore-labour', farmYear.choreLabourUsd]
+		]),
+		farm: enterpriseYear('farm', 'Whole farm', [['fixed-costs', farmYear.fixedCostsUsd]])
 	};
 }
 
@@ -124,27 +144,34 @@ const negligibleUsd = 1e-4;
 
 type PartName = keyof PartialBudgetYear['lines'];
 
-/** Lines of one part, summed by enterprise and category. */
-class PartLines {
-	private readonly byKey = new Map<string, BudgetLine>();
+/** One part's amounts, by enterprise and category. */
+class PartTotals {
+	private readonly byEnterprise = new Map<string, EnterpriseYear>();
 
-	add(enterprise: EnterpriseYear, category: Category, amountUsd: number) {
-		const key = `${enterprise.enterprise}\u0000${category}`;
-		const line = this.byKey.get(key);
-		if (line) line.amountUsd += amountUsd;
-		else
-			this.byKey.set(key, {
-				enterprise: enterprise.enterprise,
-				category,
-				item: `${enterprise.name}: ${categoryText.get(category)}`,
-				amountUsd
-			});
+	add(e: EnterpriseYear, i: number, usd: number) {
+		let total = this.byEnterprise.get(e.enterprise);
+		if (!total) {
+			total = { enterprise: e.enterprise, name: e.name, amounts: new Float64Array(categoryCount) };
+			this.byEnterprise.set(e.enterprise, total);
+		}
+		total.amounts[i] += usd;
 	}
 
 	lines(): BudgetLine[] {
-		return [...this.byKey.values()]
-			.filter((line) => line.amountUsd > negligibleUsd)
-			.sort((a, b) => b.amountUsd - a.amountUsd);
+		const lines: BudgetLine[] = [];
+		for (const { enterprise, name, amounts } of this.byEnterprise.values()) {
+			for (let i = 0; i < categoryCount; i++) {
+				if (amounts[i] > negligibleUsd) {
+					lines.push({
+						enterprise,
+						category: categories[i],
+						item: `${name}: ${words[i]}`,
+						amountUsd: amounts[i]
+					});
+				}
+			}
+		}
+		return lines.sort((a, b) => b.amountUsd - a.amountUsd);
 	}
 }
 
@@ -155,65 +182,54 @@ class PartLines {
  * its place, and for the herd and the farm, only the net change of each category is listed.
  */
 function budgetYearLines(plan: YearItems, reference: YearItems): PartialBudgetYear['lines'] {
-	const parts = new Map<PartName, PartLines>([
-		['addedReturns', new PartLines()],
-		['reducedCosts', new PartLines()],
-		['addedCosts', new PartLines()],
-		['reducedReturns', new PartLines()]
-	]);
-	const part = (name: PartName) => parts.get(name)!;
-	const gross = (e: EnterpriseYear, returnsPart: PartName, costsPart: PartName) => {
-		for (const [category, usd] of e.returns) part(returnsPart).add(e, category, usd);
-		for (const [category, usd] of e.costs) part(costsPart).add(e, category, usd);
-	};
-	const net = (p: EnterpriseYear, r: EnterpriseYear) => {
-		const change = (planItems: [Category, number][], refItems: [Category, number][]) =>
-			planItems.map(([category, usd], i): [Category, number] => [category, usd - refItems[i][1]]);
-		for (const [category, usd] of change(p.returns, r.returns)) {
-			if (usd >= 0) part('addedReturns').add(p, category, usd);
-			else part('reducedReturns').add(p, category, -usd);
-		}
-		for (const [category, usd] of change(p.costs, r.costs)) {
-			if (usd >= 0) part('addedCosts').add(p, category, usd);
-			else part('reducedCosts').add(p, category, -usd);
+	const addedReturns = new PartTotals();
+	const reducedCosts = new PartTotals();
+	const addedCosts = new PartTotals();
+	const reducedReturns = new PartTotals();
+	const gross = (e: EnterpriseYear, added: boolean) => {
+		for (let i = 0; i < categoryCount; i++) {
+			const usd = e.amounts[i];
+			if (usd === 0) continue;
+			if (i === salesIndex) (added ? addedReturns : reducedReturns).add(e, i, usd);
+			else (added ? addedCosts : reducedCosts).add(e, i, usd);
 		}
 	};
+	const net = (e: EnterpriseYear, change: Float64Array) => {
+		for (let i = 0; i < categoryCount; i++) {
+			const usd = change[i];
+			if (i === salesIndex) {
+				if (usd > 0) addedReturns.add(e, i, usd);
+				else if (usd < 0) reducedReturns.add(e, i, -usd);
+			} else if (usd > 0) addedCosts.add(e, i, usd);
+			else if (usd < 0) reducedCosts.add(e, i, -usd);
+		}
+	};
+	const difference = (p: EnterpriseYear, r: EnterpriseYear) =>
+		p.amounts.map((usd, i) => usd - r.amounts[i]);
 
 	// Same-crop changes are netted across fields first, so one field's saving offsets another's cost.
-	const sameCrop = new Map<string, { plan: EnterpriseYear; reference: EnterpriseYear }>();
-	const copy = (e: EnterpriseYear): EnterpriseYear => ({
-		...e,
-		returns: e.returns.map(([c, usd]) => [c, usd]),
-		costs: e.costs.map(([c, usd]) => [c, usd])
-	});
-	const sumInto = (into: EnterpriseYear, from: EnterpriseYear) => {
-		from.returns.forEach(([, usd], i) => (into.returns[i][1] += usd));
-		from.costs.forEach(([, usd], i) => (into.costs[i][1] += usd));
-	};
+	const sameCrop = new Map<string, { e: EnterpriseYear; change: Float64Array }>();
 	for (const fieldId of new Set([...reference.fields.keys(), ...plan.fields.keys()])) {
 		const p = plan.fields.get(fieldId);
 		const r = reference.fields.get(fieldId);
 		if (p && r && p.enterprise === r.enterprise) {
 			const sum = sameCrop.get(p.enterprise);
-			if (!sum) sameCrop.set(p.enterprise, { plan: copy(p), reference: copy(r) });
-			else {
-				sumInto(sum.plan, p);
-				sumInto(sum.reference, r);
-			}
+			if (!sum) sameCrop.set(p.enterprise, { e: p, change: difference(p, r) });
+			else for (let i = 0; i < categoryCount; i++) sum.change[i] += p.amounts[i] - r.amounts[i];
 			continue;
 		}
-		if (r) gross(r, 'reducedReturns', 'reducedCosts');
-		if (p) gross(p, 'addedReturns', 'addedCosts');
+		if (r) gross(r, false);
+		if (p) gross(p, true);
 	}
-	for (const { plan: p, reference: r } of sameCrop.values()) net(p, r);
-	net(plan.herd, reference.herd);
-	net(plan.farm, reference.farm);
+	for (const { e, change } of sameCrop.values()) net(e, change);
+	net(plan.herd, difference(plan.herd, reference.herd));
+	net(plan.farm, difference(plan.farm, reference.farm));
 
 	return {
-		addedReturns: part('addedReturns').lines(),
-		reducedCosts: part('reducedCosts').lines(),
-		addedCosts: part('addedCosts').lines(),
-		reducedReturns: part('reducedReturns').lines()
+		addedReturns: addedReturns.lines(),
+		reducedCosts: reducedCosts.lines(),
+		addedCosts: addedCosts.lines(),
+		reducedReturns: reducedReturns.lines()
 	};
 }
 

@@ -1,16 +1,17 @@
 // Accessibility rules (WCAG 2.1 A and AA, as axe-core checks them) on the main screens.
 import AxeBuilder from '@axe-core/playwright';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { BrowserContext, Page } from 'playwright-core';
-import { openBrowser, signInAs } from '../support/browser';
+import type { Browser, BrowserContext, Page } from 'playwright-core';
+import { connectBrowser, newContext, signInAs } from '../support/browser';
 import { demoUsers } from '../support/server';
 
+let browser: Browser;
 let context: BrowserContext;
-let close: () => Promise<void>;
 let farmPath: string;
 
 beforeAll(async () => {
-	({ context, close } = await openBrowser());
+	browser = await connectBrowser();
+	context = await newContext(browser);
 	const page = await context.newPage();
 	await signInAs(page, demoUsers.owner);
 	await page.waitForURL('**/farms');
@@ -19,7 +20,7 @@ beforeAll(async () => {
 	farmPath = new URL(page.url()).pathname;
 	await page.close();
 });
-afterAll(() => close());
+afterAll(() => browser.close());
 
 async function violations(page: Page) {
 	const results = await new AxeBuilder({ page })
@@ -49,10 +50,10 @@ describe('accessibility', () => {
 	});
 
 	it('the sign-in page has none, signed out', async () => {
-		const { context: fresh, close: closeFresh } = await openBrowser();
+		const fresh = await newContext(browser);
 		const page = await fresh.newPage();
 		await page.goto('/signin');
 		expect(await violations(page)).toEqual([]);
-		await closeFresh();
+		await fresh.close();
 	});
 });

@@ -1,16 +1,16 @@
 // Every screen at phone and desktop width: nothing wider than the window, and a screenshot to look at.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { BrowserContext, Page } from 'playwright-core';
-import { openBrowser, screenshot, signInAs, viewports } from '../support/browser';
+import type { Browser, BrowserContext, Page } from 'playwright-core';
+import { connectBrowser, newContext, screenshot, signInAs, viewports } from '../support/browser';
 import { demoUsers } from '../support/server';
 
+let browser: Browser;
 let context: BrowserContext;
-let close: () => Promise<void>;
+let admin: BrowserContext;
 let farmPath: string;
 
-beforeAll(async () => {
-	({ context, close } = await openBrowser());
-	// A new account of the test's own, registered through the form like a first-time visitor.
+/** A new account of the test's own, registered through the form like a first-time visitor. */
+async function registerThroughForm() {
 	const page = await context.newPage();
 	await page.goto('/register');
 	await page.getByLabel('Your name').fill('Screens Tester');
@@ -20,8 +20,22 @@ beforeAll(async () => {
 	await page.getByRole('button', { name: 'Create account' }).click();
 	await page.waitForURL('**/farms');
 	await page.close();
+}
+
+/** The site admin, signed in once for both widths. */
+async function signInAdmin() {
+	const page = await admin.newPage();
+	await signInAs(page, demoUsers.admin);
+	await page.waitForURL('**/farms');
+	await page.close();
+}
+
+beforeAll(async () => {
+	browser = await connectBrowser();
+	[context, admin] = await Promise.all([newContext(browser), newContext(browser)]);
+	await Promise.all([registerThroughForm(), signInAdmin()]);
 });
-afterAll(() => close());
+afterAll(() => browser.close());
 
 async function horizontalOverflow(page: Page) {
 	return page.evaluate(() => document.documentElement.scrollWidth - window.innerWidth);
@@ -52,18 +66,15 @@ describe.each(Object.entries(viewports))('at %s width', (size, viewport) => {
 	});
 
 	it('the accounts page fits the window (site admin)', async () => {
-		const admin = await openBrowser();
-		const page = await admin.context.newPage();
+		const page = await admin.newPage();
 		await page.setViewportSize(viewport);
-		await signInAs(page, demoUsers.admin);
-		await page.waitForURL('**/farms');
 		await page.goto('/admin');
 		await expect(page.getByRole('cell', { name: demoUsers.lender }).isVisible()).resolves.toBe(
 			true
 		);
 		expect(await horizontalOverflow(page)).toBeLessThanOrEqual(0);
 		await screenshot(page, `admin-${size}`);
-		await admin.close();
+		await page.close();
 	});
 
 	it.each(['/glossary', '/'])('%s fits the window', async (path) => {

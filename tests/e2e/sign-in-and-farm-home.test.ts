@@ -1,15 +1,17 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { BrowserContext } from 'playwright-core';
-import { openBrowser, screenshot, signInAs, viewports } from '../support/browser';
+import type { Browser, BrowserContext } from 'playwright-core';
+import { connectBrowser, newContext, screenshot, signInAs, viewports } from '../support/browser';
+import { registerUser } from '../support/http';
 import { demoUsers } from '../support/server';
 
+let browser: Browser;
 let context: BrowserContext;
-let close: () => Promise<void>;
 
 beforeAll(async () => {
-	({ context, close } = await openBrowser());
+	browser = await connectBrowser();
+	context = await newContext(browser);
 });
-afterAll(() => close());
+afterAll(() => browser.close());
 
 describe.each(Object.entries(viewports))('at %s width', (name, viewport) => {
 	it('the owner signs in, opens the farm and sees what is set up', async () => {
@@ -58,9 +60,11 @@ describe.each(Object.entries(viewports))('at %s width', (name, viewport) => {
 
 describe('refusals in the browser', () => {
 	it('a wrong password shows a message and stays on the sign-in page', async () => {
+		// An account of the test's own: failed attempts are counted per account and address.
+		const { email } = await registerUser('e2e-wrong-password');
 		await context.clearCookies();
 		const page = await context.newPage();
-		await signInAs(page, demoUsers.partner, 'wrong-password');
+		await signInAs(page, email, 'wrong-password');
 		await expect(page.getByRole('alert').textContent()).resolves.toContain(
 			'do not match an account'
 		);

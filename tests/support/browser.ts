@@ -1,7 +1,6 @@
-import { mkdtempSync, mkdirSync, rmSync } from 'node:fs';
-import { tmpdir } from 'node:os';
-import { join } from 'node:path';
-import { chromium, type BrowserContext, type Page } from 'playwright-core';
+import { mkdir } from 'node:fs/promises';
+import { chromium, type Browser, type BrowserContext, type Page } from 'playwright-core';
+import { inject } from 'vitest';
 import { baseUrl, DEMO_PASSWORD } from './server';
 
 export const viewports = {
@@ -9,33 +8,14 @@ export const viewports = {
 	desktop: { width: 1280, height: 800 }
 } as const;
 
-/** Debian's Chromium with a fresh profile; flags keep it off the (closed) network. */
-export async function openBrowser(): Promise<{
-	context: BrowserContext;
-	close: () => Promise<void>;
-}> {
-	const profile = mkdtempSync(join(tmpdir(), 'furrowcast-chromium-'));
-	const context = await chromium.launchPersistentContext(profile, {
-		executablePath: '/usr/bin/chromium',
-		headless: true,
-		baseURL: baseUrl,
-		args: [
-			'--no-sandbox',
-			'--disable-gpu',
-			'--disable-quic',
-			'--no-first-run',
-			'--disable-background-networking',
-			'--disable-component-update',
-			'--disable-sync'
-		]
-	});
-	return {
-		context,
-		close: async () => {
-			await context.close();
-			rmSync(profile, { recursive: true, force: true });
-		}
-	};
+/** The run's Chromium (browser-setup.ts). `close()` ends this file's contexts, not the browser. */
+export function connectBrowser(): Promise<Browser> {
+	return chromium.connect(inject('browserEndpoint'));
+}
+
+/** A fresh context: nobody signed in, no cookies or storage from any other context. */
+export function newContext(browser: Browser): Promise<BrowserContext> {
+	return browser.newContext({ baseURL: baseUrl });
 }
 
 export async function signInAs(page: Page, email: string, password = DEMO_PASSWORD) {
@@ -47,6 +27,6 @@ export async function signInAs(page: Page, email: string, password = DEMO_PASSWO
 
 /** Saves a screenshot under screenshots/ (ignored by git) for a person to look at. */
 export async function screenshot(page: Page, name: string) {
-	mkdirSync('screenshots', { recursive: true });
+	await mkdir('screenshots', { recursive: true });
 	await page.screenshot({ path: `screenshots/${name}.png`, fullPage: true });
 }

@@ -1,7 +1,13 @@
 // Every screen at phone and desktop width: nothing wider than the window, and a screenshot to look at.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser, BrowserContext, Page } from 'playwright-core';
-import { connectBrowser, newContext, screenshot, signInAs, viewports } from '../support/browser';
+import {
+	connectBrowser,
+	newContext,
+	screenshot,
+	signedInContext,
+	viewports
+} from '../support/browser';
 import { demoUsers } from '../support/server';
 
 let browser: Browser;
@@ -22,18 +28,14 @@ async function registerThroughForm() {
 	await page.close();
 }
 
-/** The site admin, signed in once for both widths. */
-async function signInAdmin() {
-	const page = await admin.newPage();
-	await signInAs(page, demoUsers.admin);
-	await page.waitForURL('**/farms');
-	await page.close();
-}
-
 beforeAll(async () => {
 	browser = await connectBrowser();
-	[context, admin] = await Promise.all([newContext(browser), newContext(browser)]);
-	await Promise.all([registerThroughForm(), signInAdmin()]);
+	// The site admin is signed in once for both widths.
+	[context, admin] = await Promise.all([
+		newContext(browser),
+		signedInContext(browser, demoUsers.admin)
+	]);
+	await registerThroughForm();
 });
 afterAll(() => browser.close());
 

@@ -1,6 +1,13 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser, BrowserContext } from 'playwright-core';
-import { connectBrowser, newContext, screenshot, signInAs, viewports } from '../support/browser';
+import {
+	connectBrowser,
+	newContext,
+	screenshot,
+	signedInContext,
+	signInAs,
+	viewports
+} from '../support/browser';
 import { registerUser } from '../support/http';
 import { demoUsers } from '../support/server';
 
@@ -73,10 +80,9 @@ describe('refusals in the browser', () => {
 	});
 
 	it('the lender sees the farm but is refused its settings page', async () => {
-		await context.clearCookies();
-		const page = await context.newPage();
-		await signInAs(page, demoUsers.lender);
-		await page.waitForURL('**/farms');
+		const lender = await signedInContext(browser, demoUsers.lender);
+		const page = await lender.newPage();
+		await page.goto('/farms');
 		await page.getByText('Maple Coulee Farm').click();
 		await page.waitForURL(/\/farms\/[0-9a-f-]{36}$/);
 		await expect(page.getByText('Farm settings').count()).resolves.toBe(0);
@@ -85,7 +91,7 @@ describe('refusals in the browser', () => {
 		await expect(page.getByRole('heading', { level: 1 }).textContent()).resolves.toContain(
 			'may not do this'
 		);
-		await page.close();
+		await lender.close();
 	});
 
 	it('a malformed sign-up shows a message beside each field', async () => {

@@ -1,6 +1,7 @@
 import { mkdir } from 'node:fs/promises';
 import { chromium, type Browser, type BrowserContext, type Page } from 'playwright-core';
 import { inject } from 'vitest';
+import { signedIn } from './http';
 import { baseUrl, DEMO_PASSWORD } from './server';
 
 export const viewports = {
@@ -16,6 +17,16 @@ export function connectBrowser(): Promise<Browser> {
 /** A fresh context: nobody signed in, no cookies or storage from any other context. */
 export function newContext(browser: Browser): Promise<BrowserContext> {
 	return browser.newContext({ baseURL: baseUrl });
+}
+
+/**
+ * A context already signed in (over HTTP, with the same session cookie the sign-in page sets), for
+ * tests about what a signed-in person sees rather than about signing in.
+ */
+export async function signedInContext(browser: Browser, email: string): Promise<BrowserContext> {
+	const [context, client] = await Promise.all([newContext(browser), signedIn(email)]);
+	await context.addCookies(client.cookieList().map((cookie) => ({ ...cookie, url: baseUrl })));
+	return context;
 }
 
 export async function signInAs(page: Page, email: string, password = DEMO_PASSWORD) {

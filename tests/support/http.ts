@@ -62,6 +62,11 @@ export class Client {
 		});
 	}
 
+	/** The cookies this client holds, for a browser context to start signed in as the same person. */
+	cookieList(): { name: string; value: string }[] {
+		return [...this.cookies].map(([name, value]) => ({ name, value }));
+	}
+
 	hasSession(): boolean {
 		return [...this.cookies.keys()].some((name) => name.includes('authjs.session-token'));
 	}

@@ -10,6 +10,9 @@ declare module 'vitest' {
 }
 
 export async function setup(project: TestProject) {
+	if (!process.env.DATABASE_URL) {
+		throw new Error('DATABASE_URL is not set: run the tests with `npm test`.');
+	}
 	const pool = new pg.Pool({ connectionString: process.env.DATABASE_URL });
 	try {
 		const roots = await findDemoRoots(pool);

@@ -43,7 +43,7 @@ export default defineConfig({
 					name: 'e2e',
 					environment: 'node',
 					include: ['tests/e2e/**/*.test.ts'],
-					globalSetup: ['tests/support/global-setup.ts', 'tests/support/browser-setup.ts'],
+					globalSetup: ['tests/support/global-setup.ts'],
 					fileParallelism: false,
 					isolate: false,
 					sequence: { groupOrder: 1 },

@@ -1,21 +1,22 @@
 // Accessibility rules (WCAG 2.1 A and AA, as axe-core checks them) on the main screens.
 import AxeBuilder from '@axe-core/playwright';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { Browser, BrowserContext, Page } from 'playwright-core';
-import { connectBrowser, newContext, signedInContext } from '../support/browser';
+import type { BrowserContext, Page } from 'playwright-core';
+import { openBrowser, sessionCookies, useSession } from '../support/browser';
 import { demoUsers } from '../support/server';
 
-let browser: Browser;
 let context: BrowserContext;
+let close: () => Promise<void>;
+let owner: Awaited<ReturnType<typeof sessionCookies>>;
 let farmPath: string;
 
 beforeAll(async () => {
-	browser = await connectBrowser();
-	context = await signedInContext(browser, demoUsers.owner);
+	[{ context, close }, owner] = await Promise.all([openBrowser(), sessionCookies(demoUsers.owner)]);
+	await useSession(context, owner);
 	const { farms } = await (await context.request.get('/api/v1/farms')).json();
 	farmPath = `/farms/${farms.find((f: { name: string }) => f.name === 'Maple Coulee Farm').id}`;
 });
-afterAll(() => browser.close());
+afterAll(() => close());
 
 async function violations(page: Page) {
 	const results = await new AxeBuilder({ page })
@@ -41,6 +42,7 @@ const screens: [string, () => string][] = [
 
 describe('accessibility', () => {
 	it.each(screens)('the %s has no WCAG A/AA violations', async (_name, path) => {
+		await useSession(context, owner);
 		const page = await context.newPage();
 		await page.goto(path());
 		expect(await violations(page)).toEqual([]);
@@ -48,10 +50,10 @@ describe('accessibility', () => {
 	});
 
 	it('the sign-in page has none, signed out', async () => {
-		const fresh = await newContext(browser);
-		const page = await fresh.newPage();
+		await useSession(context, []);
+		const page = await context.newPage();
 		await page.goto('/signin');
 		expect(await violations(page)).toEqual([]);
-		await fresh.close();
+		await page.close();
 	});
 });

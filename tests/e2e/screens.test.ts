@@ -1,21 +1,17 @@
 // Every screen at phone and desktop width: nothing wider than the window, and a screenshot to look at.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { Browser, BrowserContext, Page } from 'playwright-core';
-import {
-	connectBrowser,
-	newContext,
-	screenshot,
-	signedInContext,
-	viewports
-} from '../support/browser';
+import type { BrowserContext, Page } from 'playwright-core';
+import { openBrowser, screenshot, sessionCookies, useSession, viewports } from '../support/browser';
 import { demoUsers } from '../support/server';
 
-let browser: Browser;
 let context: BrowserContext;
-let admin: BrowserContext;
+let close: () => Promise<void>;
 let farmPath: string;
+// Who is signed in: a new account of the test's own, and the site admin for the accounts page.
+let newcomer: Awaited<ReturnType<BrowserContext['cookies']>>;
+let admin: Awaited<ReturnType<typeof sessionCookies>>;
 
-/** A new account of the test's own, registered through the form like a first-time visitor. */
+/** Registers through the form like a first-time visitor; the context is then signed in as them. */
 async function registerThroughForm() {
 	const page = await context.newPage();
 	await page.goto('/register');
@@ -29,15 +25,11 @@ async function registerThroughForm() {
 }
 
 beforeAll(async () => {
-	browser = await connectBrowser();
-	// The site admin is signed in once for both widths.
-	[context, admin] = await Promise.all([
-		newContext(browser),
-		signedInContext(browser, demoUsers.admin)
-	]);
+	[{ context, close }, admin] = await Promise.all([openBrowser(), sessionCookies(demoUsers.admin)]);
 	await registerThroughForm();
+	newcomer = await context.cookies();
 });
-afterAll(() => browser.close());
+afterAll(() => close());
 
 async function horizontalOverflow(page: Page) {
 	return page.evaluate(() => document.documentElement.scrollWidth - window.innerWidth);
@@ -45,6 +37,7 @@ async function horizontalOverflow(page: Page) {
 
 describe.each(Object.entries(viewports))('at %s width', (size, viewport) => {
 	it('the farm list, a new farm form and the settings fit the window', async () => {
+		await useSession(context, newcomer);
 		const page = await context.newPage();
 		await page.setViewportSize(viewport);
 		await page.goto('/farms');
@@ -68,7 +61,8 @@ describe.each(Object.entries(viewports))('at %s width', (size, viewport) => {
 	});
 
 	it('the accounts page fits the window (site admin)', async () => {
-		const page = await admin.newPage();
+		await useSession(context, admin);
+		const page = await context.newPage();
 		await page.setViewportSize(viewport);
 		await page.goto('/admin');
 		await expect(page.getByRole('cell', { name: demoUsers.lender }).isVisible()).resolves.toBe(
@@ -80,6 +74,7 @@ describe.each(Object.entries(viewports))('at %s width', (size, viewport) => {
 	});
 
 	it.each(['/glossary', '/'])('%s fits the window', async (path) => {
+		await useSession(context, newcomer);
 		const page = await context.newPage();
 		await page.setViewportSize(viewport);
 		const response = await page.goto(path);

@@ -1,24 +1,23 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { Browser, BrowserContext } from 'playwright-core';
+import type { BrowserContext } from 'playwright-core';
 import {
-	connectBrowser,
-	newContext,
+	openBrowser,
 	screenshot,
-	signedInContext,
+	sessionCookies,
 	signInAs,
+	useSession,
 	viewports
 } from '../support/browser';
 import { registerUser } from '../support/http';
 import { demoUsers } from '../support/server';
 
-let browser: Browser;
 let context: BrowserContext;
+let close: () => Promise<void>;
 
 beforeAll(async () => {
-	browser = await connectBrowser();
-	context = await newContext(browser);
+	({ context, close } = await openBrowser());
 });
-afterAll(() => browser.close());
+afterAll(() => close());
 
 describe.each(Object.entries(viewports))('at %s width', (name, viewport) => {
 	it('the owner signs in, opens the farm and sees what is set up', async () => {
@@ -80,8 +79,8 @@ describe('refusals in the browser', () => {
 	});
 
 	it('the lender sees the farm but is refused its settings page', async () => {
-		const lender = await signedInContext(browser, demoUsers.lender);
-		const page = await lender.newPage();
+		await useSession(context, await sessionCookies(demoUsers.lender));
+		const page = await context.newPage();
 		await page.goto('/farms');
 		await page.getByText('Maple Coulee Farm').click();
 		await page.waitForURL(/\/farms\/[0-9a-f-]{36}$/);
@@ -91,7 +90,7 @@ describe('refusals in the browser', () => {
 		await expect(page.getByRole('heading', { level: 1 }).textContent()).resolves.toContain(
 			'may not do this'
 		);
-		await lender.close();
+		await page.close();
 	});
 
 	it('a malformed sign-up shows a message beside each field', async () => {

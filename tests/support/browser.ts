@@ -1,6 +1,7 @@
-import { mkdir } from 'node:fs/promises';
-import { chromium, type Browser, type BrowserContext, type Page } from 'playwright-core';
-import { inject } from 'vitest';
+import { mkdir, mkdtemp, rm } from 'node:fs/promises';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { chromium, type BrowserContext, type Page } from 'playwright-core';
 import { signedIn } from './http';
 import { baseUrl, DEMO_PASSWORD } from './server';
 
@@ -9,24 +10,54 @@ export const viewports = {
 	desktop: { width: 1280, height: 800 }
 } as const;
 
-/** The run's Chromium (browser-setup.ts). `close()` ends this file's contexts, not the browser. */
-export function connectBrowser(): Promise<Browser> {
-	return chromium.connect(inject('browserEndpoint'));
+/**
+ * Debian's Chromium with a fresh profile; flags keep it off the (closed) network. One per test file:
+ * a profile keeps compiled scripts between pages, which a new incognito-like context does not, so a
+ * file changes who is signed in with `useSession` rather than opening another browser or context.
+ */
+export async function openBrowser(): Promise<{
+	context: BrowserContext;
+	close: () => Promise<void>;
+}> {
+	const profile = await mkdtemp(join(tmpdir(), 'furrowcast-chromium-'));
+	const context = await chromium.launchPersistentContext(profile, {
+		executablePath: '/usr/bin/chromium',
+		headless: true,
+		baseURL: baseUrl,
+		args: [
+			'--no-sandbox',
+			'--disable-gpu',
+			'--disable-quic',
+			'--no-first-run',
+			'--disable-background-networking',
+			'--disable-component-update',
+			'--disable-sync'
+		]
+	});
+	return {
+		context,
+		close: async () => {
+			await context.close();
+			await rm(profile, { recursive: true, force: true });
+		}
+	};
 }
 
-/** A fresh context: nobody signed in, no cookies or storage from any other context. */
-export function newContext(browser: Browser): Promise<BrowserContext> {
-	return browser.newContext({ baseURL: baseUrl });
-}
+type SessionCookies = Parameters<BrowserContext['addCookies']>[0];
 
 /**
- * A context already signed in (over HTTP, with the same session cookie the sign-in page sets), for
- * tests about what a signed-in person sees rather than about signing in.
+ * The session cookies of a sign-in over HTTP, the same ones the sign-in page sets: for tests about
+ * what a signed-in person sees rather than about signing in.
  */
-export async function signedInContext(browser: Browser, email: string): Promise<BrowserContext> {
-	const [context, client] = await Promise.all([newContext(browser), signedIn(email)]);
-	await context.addCookies(client.cookieList().map((cookie) => ({ ...cookie, url: baseUrl })));
-	return context;
+export async function sessionCookies(email: string): Promise<SessionCookies> {
+	const client = await signedIn(email);
+	return client.cookieList().map((cookie) => ({ ...cookie, url: baseUrl }));
+}
+
+/** Makes the context's pages signed in with these cookies only (none: signed out). */
+export async function useSession(context: BrowserContext, cookies: SessionCookies) {
+	await context.clearCookies();
+	if (cookies.length) await context.addCookies(cookies);
 }
 
 export async function signInAs(page: Page, email: string, password = DEMO_PASSWORD) {

@@ -1,7 +1,11 @@
 import { sveltekit } from '@sveltejs/kit/vite';
 import tailwindcss from '@tailwindcss/vite';
-import { defineConfig } from 'vitest/config';
+import { configDefaults, defineConfig } from 'vitest/config';
 
+// Projects run in groups (sequence.groupOrder): unit, then integration and e2e one file at a time
+// against the one server and database, then the check that they left the seeded demo as it was.
+// No project keeps state in modules (files build their own data), so files share one module graph
+// (isolate: false) instead of loading the engine, mathjs and the db client again for each.
 export default defineConfig({
 	plugins: [tailwindcss(), sveltekit()],
 	test: {
@@ -13,7 +17,9 @@ export default defineConfig({
 				test: {
 					name: 'unit',
 					environment: 'node',
-					include: ['tests/unit/**/*.test.ts']
+					include: ['tests/unit/**/*.test.ts'],
+					isolate: false,
+					sequence: { groupOrder: 0 }
 				}
 			},
 			{
@@ -22,8 +28,11 @@ export default defineConfig({
 					name: 'integration',
 					environment: 'node',
 					include: ['tests/integration/**/*.test.ts'],
+					exclude: [...configDefaults.exclude, 'tests/integration/after-all/**'],
 					globalSetup: ['tests/support/global-setup.ts'],
 					fileParallelism: false,
+					isolate: false,
+					sequence: { groupOrder: 1 },
 					testTimeout: 30_000,
 					hookTimeout: 60_000
 				}
@@ -36,8 +45,20 @@ export default defineConfig({
 					include: ['tests/e2e/**/*.test.ts'],
 					globalSetup: ['tests/support/global-setup.ts'],
 					fileParallelism: false,
+					isolate: false,
+					sequence: { groupOrder: 1 },
 					testTimeout: 60_000,
 					hookTimeout: 60_000
+				}
+			},
+			{
+				extends: './vite.config.ts',
+				test: {
+					name: 'demo-unchanged',
+					environment: 'node',
+					include: ['tests/integration/after-all/**/*.test.ts'],
+					globalSetup: ['tests/support/demo-snapshot-setup.ts'],
+					sequence: { groupOrder: 2 }
 				}
 			}
 		]

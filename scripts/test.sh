@@ -14,12 +14,10 @@ cleanup() {
 }
 trap cleanup EXIT
 
-say 'type check (svelte-check)'
-npx svelte-kit sync
-npx svelte-check --tsconfig ./tsconfig.json --fail-on-warnings
-say 'lint (prettier, eslint)'
-npx prettier --check . --log-level warn
-npx eslint .
+say 'type check (npm run check)'
+npm run -s check
+say 'lint (npm run lint)'
+npm run -s lint
 
 pg_start
 say 'fresh test database'
@@ -31,9 +29,16 @@ ensure_chromium
 ensure_build
 
 say 'tests'
+report=test-results/vitest.json
+rm -f "$report" # the closing line must come from this run's report, never an older one
 status=0
-npx vitest run --reporter=default --reporter=json --outputFile.json=test-results/vitest.json "$@" || status=$?
+npx vitest run --reporter=default --reporter=json --outputFile.json="$report" "$@" || status=$?
 # One plain closing line for CI: how many passed and failed.
-node -e "const r = require('./test-results/vitest.json');
+if [ ! -f "$report" ]; then
+	echo "vitest: no report was written to $report (vitest exited with status $status)"
+	[ "$status" = 0 ] && status=1
+	exit "$status"
+fi
+node -e "const r = require('./$report');
 console.log('vitest: ' + r.numPassedTests + ' passed, ' + r.numFailedTests + ' failed')"
 exit "$status"

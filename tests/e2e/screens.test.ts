@@ -1,16 +1,18 @@
 // Every screen at phone and desktop width: nothing wider than the window, and a screenshot to look at.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { BrowserContext, Page } from 'playwright-core';
-import { openBrowser, screenshot, signInAs, viewports } from '../support/browser';
+import { openBrowser, screenshot, sessionCookies, useSession, viewports } from '../support/browser';
 import { demoUsers } from '../support/server';
 
 let context: BrowserContext;
 let close: () => Promise<void>;
 let farmPath: string;
+// Who is signed in: a new account of the test's own, and the site admin for the accounts page.
+let newcomer: Awaited<ReturnType<BrowserContext['cookies']>>;
+let admin: Awaited<ReturnType<typeof sessionCookies>>;
 
-beforeAll(async () => {
-	({ context, close } = await openBrowser());
-	// A new account of the test's own, registered through the form like a first-time visitor.
+/** Registers through the form like a first-time visitor; the context is then signed in as them. */
+async function registerThroughForm() {
 	const page = await context.newPage();
 	await page.goto('/register');
 	await page.getByLabel('Your name').fill('Screens Tester');
@@ -20,6 +22,12 @@ beforeAll(async () => {
 	await page.getByRole('button', { name: 'Create account' }).click();
 	await page.waitForURL('**/farms');
 	await page.close();
+}
+
+beforeAll(async () => {
+	[{ context, close }, admin] = await Promise.all([openBrowser(), sessionCookies(demoUsers.admin)]);
+	await registerThroughForm();
+	newcomer = await context.cookies();
 });
 afterAll(() => close());
 
@@ -29,6 +37,7 @@ async function horizontalOverflow(page: Page) {
 
 describe.each(Object.entries(viewports))('at %s width', (size, viewport) => {
 	it('the farm list, a new farm form and the settings fit the window', async () => {
+		await useSession(context, newcomer);
 		const page = await context.newPage();
 		await page.setViewportSize(viewport);
 		await page.goto('/farms');
@@ -52,21 +61,20 @@ describe.each(Object.entries(viewports))('at %s width', (size, viewport) => {
 	});
 
 	it('the accounts page fits the window (site admin)', async () => {
-		const admin = await openBrowser();
-		const page = await admin.context.newPage();
+		await useSession(context, admin);
+		const page = await context.newPage();
 		await page.setViewportSize(viewport);
-		await signInAs(page, demoUsers.admin);
-		await page.waitForURL('**/farms');
 		await page.goto('/admin');
 		await expect(page.getByRole('cell', { name: demoUsers.lender }).isVisible()).resolves.toBe(
 			true
 		);
 		expect(await horizontalOverflow(page)).toBeLessThanOrEqual(0);
 		await screenshot(page, `admin-${size}`);
-		await admin.close();
+		await page.close();
 	});
 
 	it.each(['/glossary', '/'])('%s fits the window', async (path) => {
+		await useSession(context, newcomer);
 		const page = await context.newPage();
 		await page.setViewportSize(viewport);
 		const response = await page.goto(path);

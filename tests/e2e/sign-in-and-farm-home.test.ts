@@ -1,6 +1,14 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { BrowserContext } from 'playwright-core';
-import { openBrowser, screenshot, signInAs, viewports } from '../support/browser';
+import {
+	openBrowser,
+	screenshot,
+	sessionCookies,
+	signInAs,
+	useSession,
+	viewports
+} from '../support/browser';
+import { registerUser } from '../support/http';
 import { demoUsers } from '../support/server';
 
 let context: BrowserContext;
@@ -58,9 +66,11 @@ describe.each(Object.entries(viewports))('at %s width', (name, viewport) => {
 
 describe('refusals in the browser', () => {
 	it('a wrong password shows a message and stays on the sign-in page', async () => {
+		// An account of the test's own: failed attempts are counted per account and address.
+		const { email } = await registerUser('e2e-wrong-password');
 		await context.clearCookies();
 		const page = await context.newPage();
-		await signInAs(page, demoUsers.partner, 'wrong-password');
+		await signInAs(page, email, 'wrong-password');
 		await expect(page.getByRole('alert').textContent()).resolves.toContain(
 			'do not match an account'
 		);
@@ -69,10 +79,9 @@ describe('refusals in the browser', () => {
 	});
 
 	it('the lender sees the farm but is refused its settings page', async () => {
-		await context.clearCookies();
+		await useSession(context, await sessionCookies(demoUsers.lender));
 		const page = await context.newPage();
-		await signInAs(page, demoUsers.lender);
-		await page.waitForURL('**/farms');
+		await page.goto('/farms');
 		await page.getByText('Maple Coulee Farm').click();
 		await page.waitForURL(/\/farms\/[0-9a-f-]{36}$/);
 		await expect(page.getByText('Farm settings').count()).resolves.toBe(0);

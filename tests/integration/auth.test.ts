@@ -3,11 +3,10 @@ import { eq } from 'drizzle-orm';
 import { describe, expect, it } from 'vitest';
 import { users } from '../../src/lib/server/db/schema';
 import { testDb } from '../support/db';
-import { Client, signedIn } from '../support/http';
+import { Client, registerUser, signedIn, uniqueEmail } from '../support/http';
 import { DEMO_PASSWORD, demoUsers } from '../support/server';
 
 const db = testDb();
-const uniqueEmail = (label: string) => `${label}-${crypto.randomUUID().slice(0, 8)}@example.test`;
 
 describe('sign-in', () => {
 	it.each([
@@ -31,8 +30,10 @@ describe('sign-in', () => {
 	});
 
 	it('refuses a wrong password without a session', async () => {
+		// An account of the test's own: failed attempts are counted per account and address.
+		const { email } = await registerUser('wrong-password');
 		const client = new Client();
-		const response = await client.signIn(demoUsers.partner, 'not-the-password');
+		const response = await client.signIn(email, 'not-the-password');
 		expect(response.status).toBe(400);
 		expect(await response.text()).toContain('do not match an account');
 		expect(client.hasSession()).toBe(false);

@@ -1,7 +1,7 @@
-import { execFileSync } from 'node:child_process';
 import { readFileSync } from 'node:fs';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { Client, signedIn } from '../support/http';
+import { runPlan } from '../support/plan-cli';
 import { demoUsers } from '../support/server';
 import { farmYearNames, partialBudgetNames } from '../support/result-contract';
 
@@ -37,19 +37,14 @@ describe('POST /api/v1/evaluate', () => {
 		for (const part of [...result.partialBudget.years, result.partialBudget.average]) {
 			for (const key of partialBudgetNames) expect(typeof part[key]).toBe('number');
 		}
-		const cli = execFileSync(
-			'npx',
-			[
-				'tsx',
-				'scripts/plan.ts',
-				'evaluate',
-				'scenarios/reduced-n.json',
-				'--against',
-				'scenarios/reference.json'
-			],
-			{ encoding: 'utf8' }
+		const cli = await runPlan(
+			'evaluate',
+			'scenarios/reduced-n.json',
+			'--against',
+			'scenarios/reference.json'
 		);
-		expect(result).toEqual(JSON.parse(cli));
+		expect(cli.code).toBe(0);
+		expect(result).toEqual(JSON.parse(cli.stdout));
 	});
 
 	it('answers 422 naming the path of each bad value', async () => {

@@ -1,14 +1,15 @@
 import { eq } from 'drizzle-orm';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { beforeAll, describe, expect, it } from 'vitest';
 import { farms, memberships } from '../../src/lib/server/db/schema';
 import { testDb } from '../support/db';
-import { newUser, signedIn, type Client } from '../support/http';
+import { addMember, createFarm, demoFarmId } from '../support/farms';
+import { registerUser, signedIn, type Client } from '../support/http';
 import { demoUsers } from '../support/server';
 
 const db = testDb();
 const months = Array(12).fill(200);
 const validSettings = {
-	name: 'Maple Coulee Farm',
+	name: 'Access Test Farm',
 	region: 'Upper Midwest',
 	unitSystem: 'us',
 	labourHoursAvailableByMonth: months,
@@ -16,30 +17,27 @@ const validSettings = {
 };
 
 let owner: Client;
-let partner: Client;
 let lender: Client;
 let mapleId: string;
 let birchId: string;
+// A farm of this file's own, for the edits: a new owner, and a second new person as its editor.
+let farmOwner: Client;
+let editor: Client;
+let ownFarmId: string;
 
 beforeAll(async () => {
-	[owner, partner, lender] = await Promise.all([
-		signedIn(demoUsers.owner),
-		signedIn(demoUsers.partner),
-		signedIn(demoUsers.lender)
-	]);
-	const { farms: list } = await (await lender.fetch('/api/v1/farms')).json();
-	mapleId = list.find((f: { name: string }) => f.name === 'Maple Coulee Farm').id;
-	birchId = list.find((f: { name: string }) => f.name === 'Birch Hollow Farm').id;
-	const { farm } = await (await partner.fetch(`/api/v1/farms/${mapleId}`)).json();
-	const { id: _farmId, ...settings } = farm;
-	seededSettings = settings;
-});
-
-// Other test files compare the demo farm with its plan files: leave it as it was seeded.
-let seededSettings: Record<string, unknown>;
-afterAll(async () => {
-	const restored = await partner.json(`/api/v1/farms/${mapleId}`, 'PUT', seededSettings);
-	expect(restored.status).toBe(200);
+	let editorEmail: string;
+	[owner, lender, farmOwner, { client: editor, email: editorEmail }, mapleId, birchId] =
+		await Promise.all([
+			signedIn(demoUsers.owner),
+			signedIn(demoUsers.lender),
+			registerUser('farm-owner').then((user) => user.client),
+			registerUser('farm-editor'),
+			demoFarmId(db, 'Maple Coulee Farm'),
+			demoFarmId(db, 'Birch Hollow Farm')
+		]);
+	ownFarmId = await createFarm(farmOwner, validSettings);
+	await addMember(db, ownFarmId, editorEmail, 'editor');
 });
 
 const farmRow = (id: string) => db.query.farms.findFirst({ where: eq(farms.id, id) });
@@ -101,26 +99,26 @@ describe('a reviewer (the lender)', () => {
 	});
 });
 
-describe('an editor (the family partner)', () => {
+describe('an editor', () => {
 	it('saves farm settings through the form and the API', async () => {
-		const saved = await partner.postForm(`/farms/${mapleId}/settings`, {
-			name: 'Maple Coulee Farm',
+		const saved = await editor.postForm(`/farms/${ownFarmId}/settings`, {
+			name: 'Access Test Farm',
 			region: 'Upper Midwest, east coulee',
 			unitSystem: 'us',
 			labourHours: months.map(String),
 			interestRatePercent: '6.5'
 		});
 		expect(saved.status).toBe(303);
-		expect((await farmRow(mapleId))?.region).toBe('Upper Midwest, east coulee');
-		const api = await partner.json(`/api/v1/farms/${mapleId}`, 'PUT', validSettings);
+		expect((await farmRow(ownFarmId))?.region).toBe('Upper Midwest, east coulee');
+		const api = await editor.json(`/api/v1/farms/${ownFarmId}`, 'PUT', validSettings);
 		expect(api.status).toBe(200);
-		const row = await farmRow(mapleId);
+		const row = await farmRow(ownFarmId);
 		expect([row?.region, row?.interestRatePercent]).toEqual(['Upper Midwest', 6]);
 	});
 
 	it('gets field-named messages for bad settings, and nothing is saved', async () => {
-		const before = await farmRow(mapleId);
-		const form = await partner.postForm(`/farms/${mapleId}/settings`, {
+		const before = await farmRow(ownFarmId);
+		const form = await editor.postForm(`/farms/${ownFarmId}/settings`, {
 			name: '',
 			unitSystem: 'furlongs',
 			labourHours: ['200', '-5', ...months.slice(2).map(String)],
@@ -131,7 +129,7 @@ describe('an editor (the family partner)', () => {
 		expect(html).toContain('Enter the farm name.');
 		expect(html).toContain('Hours cannot be negative.');
 		expect(html).toContain('Enter the rate as a number.');
-		const api = await partner.json(`/api/v1/farms/${mapleId}`, 'PUT', {
+		const api = await editor.json(`/api/v1/farms/${ownFarmId}`, 'PUT', {
 			...validSettings,
 			labourHoursAvailableByMonth: [1, 2, 3]
 		});
@@ -142,14 +140,13 @@ describe('an editor (the family partner)', () => {
 				message: 'Give labour hours for all 12 months, January to December.'
 			}
 		]);
-		expect(await farmRow(mapleId)).toEqual(before);
+		expect(await farmRow(ownFarmId)).toEqual(before);
 	});
 });
 
 describe('POST /api/v1/farms', () => {
 	it('creates a farm with the caller as owner', async () => {
-		const newcomer = await newUser('farm-creator');
-		const response = await newcomer.json('/api/v1/farms', 'POST', {
+		const response = await farmOwner.json('/api/v1/farms', 'POST', {
 			...validSettings,
 			name: 'Lender Test Plot'
 		});

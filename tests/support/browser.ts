@@ -1,7 +1,8 @@
-import { mkdtempSync, mkdirSync, rmSync } from 'node:fs';
+import { mkdir, mkdtemp, rm } from 'node:fs/promises';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { chromium, type BrowserContext, type Page } from 'playwright-core';
+import { signedIn } from './http';
 import { baseUrl, DEMO_PASSWORD } from './server';
 
 export const viewports = {
@@ -9,12 +10,16 @@ export const viewports = {
 	desktop: { width: 1280, height: 800 }
 } as const;
 
-/** Debian's Chromium with a fresh profile; flags keep it off the (closed) network. */
+/**
+ * Debian's Chromium with a fresh profile; flags keep it off the (closed) network. One per test file:
+ * a profile keeps compiled scripts between pages, which a new incognito-like context does not, so a
+ * file changes who is signed in with `useSession` rather than opening another browser or context.
+ */
 export async function openBrowser(): Promise<{
 	context: BrowserContext;
 	close: () => Promise<void>;
 }> {
-	const profile = mkdtempSync(join(tmpdir(), 'furrowcast-chromium-'));
+	const profile = await mkdtemp(join(tmpdir(), 'furrowcast-chromium-'));
 	const context = await chromium.launchPersistentContext(profile, {
 		executablePath: '/usr/bin/chromium',
 		headless: true,
@@ -33,9 +38,26 @@ export async function openBrowser(): Promise<{
 		context,
 		close: async () => {
 			await context.close();
-			rmSync(profile, { recursive: true, force: true });
+			await rm(profile, { recursive: true, force: true });
 		}
 	};
+}
+
+type SessionCookies = Parameters<BrowserContext['addCookies']>[0];
+
+/**
+ * The session cookies of a sign-in over HTTP, the same ones the sign-in page sets: for tests about
+ * what a signed-in person sees rather than about signing in.
+ */
+export async function sessionCookies(email: string): Promise<SessionCookies> {
+	const client = await signedIn(email);
+	return client.cookieList().map((cookie) => ({ ...cookie, url: baseUrl }));
+}
+
+/** Makes the context's pages signed in with these cookies only (none: signed out). */
+export async function useSession(context: BrowserContext, cookies: SessionCookies) {
+	await context.clearCookies();
+	if (cookies.length) await context.addCookies(cookies);
 }
 
 export async function signInAs(page: Page, email: string, password = DEMO_PASSWORD) {
@@ -47,6 +69,6 @@ export async function signInAs(page: Page, email: string, password = DEMO_PASSWO
 
 /** Saves a screenshot under screenshots/ (ignored by git) for a person to look at. */
 export async function screenshot(page: Page, name: string) {
-	mkdirSync('screenshots', { recursive: true });
+	await mkdir('screenshots', { recursive: true });
 	await page.screenshot({ path: `screenshots/${name}.png`, fullPage: true });
 }

@@ -1,12 +1,18 @@
 import { baseUrl, DEMO_PASSWORD } from './server';
 
-/** A signed-in (or anonymous) client: keeps its cookies and sends the Origin SvelteKit checks on POSTs. */
+/**
+ * A signed-in (or anonymous) client: keeps its cookies and sends the Origin SvelteKit checks on POSTs.
+ * Every request has a connection of its own: a socket kept alive could be closed by the server
+ * (adapter-node's KEEP_ALIVE_TIMEOUT, 5 s) while this process is busy, and the next request sent on it
+ * would fail with `SocketError: other side closed`.
+ */
 export class Client {
 	private cookies = new Map<string, string>();
 
 	async fetch(path: string, init: RequestInit = {}): Promise<Response> {
 		const headers = new Headers(init.headers);
 		headers.set('Origin', baseUrl);
+		headers.set('Connection', 'close');
 		if (this.cookies.size) {
 			headers.set('Cookie', [...this.cookies].map(([k, v]) => `${k}=${v}`).join('; '));
 		}
@@ -56,6 +62,11 @@ export class Client {
 		});
 	}
 
+	/** The cookies this client holds, for a browser context to start signed in as the same person. */
+	cookieList(): { name: string; value: string }[] {
+		return [...this.cookies].map(([name, value]) => ({ name, value }));
+	}
+
 	hasSession(): boolean {
 		return [...this.cookies.keys()].some((name) => name.includes('authjs.session-token'));
 	}
@@ -78,17 +89,25 @@ export async function signedIn(email: string): Promise<Client> {
 	return client;
 }
 
-/** A new account of its own, signed in, for tests that create things. */
-export async function newUser(label: string): Promise<Client> {
+export const uniqueEmail = (label: string) =>
+	`${label}-${crypto.randomUUID().slice(0, 8)}@example.test`;
+
+/** A new account of its own, signed in, for tests that create or change things. */
+export async function registerUser(label: string) {
 	const client = new Client();
+	const email = uniqueEmail(label);
 	const password = 'a-long-test-password';
 	await client.postForm('/register', {
 		providerId: 'credentials',
 		name: `Test ${label}`,
-		email: `${label}-${crypto.randomUUID().slice(0, 8)}@example.test`,
+		email,
 		password,
 		confirmPassword: password
 	});
 	if (!client.hasSession()) throw new Error(`registering a ${label} user failed`);
-	return client;
+	return { client, email };
+}
+
+export async function newUser(label: string): Promise<Client> {
+	return (await registerUser(label)).client;
 }

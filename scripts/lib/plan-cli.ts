@@ -8,7 +8,7 @@
  */
 import { readFile } from 'node:fs/promises';
 import type { Writable } from 'node:stream';
-import { evaluatePlan, referenceHorizonIssues } from '../../src/lib/engine';
+import { evaluatePlan, NonFiniteResultError, referenceHorizonIssues } from '../../src/lib/engine';
 import type { FieldIssue } from '../../src/lib/schemas/issues';
 import { parsePlanDocument, type PlanDocument } from '../../src/lib/schemas/plan-file';
 
@@ -50,6 +50,16 @@ function describeIssues(file: string, issues: FieldIssue[]): string[] {
 	];
 }
 
+/** The results, or the input error naming each result that would not be a finite number. */
+function evaluateOrRefuse(file: string, plan: PlanDocument, reference?: PlanDocument) {
+	try {
+		return evaluatePlan(plan, reference);
+	} catch (error) {
+		if (error instanceof NonFiniteResultError) fail(describeIssues(file, error.issues));
+		throw error;
+	}
+}
+
 function parseArguments(args: string[]): { planFile: string; referenceFile?: string } {
 	const [command, planFile, ...rest] = args;
 	if (command !== 'evaluate' || !planFile || planFile.startsWith('--')) fail([usage]);
@@ -89,7 +99,7 @@ export async function runPlanCommand(args: string[], streams: PlanCommandStreams
 			const mismatch = referenceHorizonIssues(plan, reference);
 			if (mismatch.length) fail(describeIssues(planFile, mismatch));
 		}
-		output = JSON.stringify(evaluatePlan(plan, reference), null, 2) + '\n';
+		output = JSON.stringify(evaluateOrRefuse(planFile, plan, reference), null, 2) + '\n';
 	} catch (error) {
 		if (!(error instanceof InputError)) throw error;
 		await print(streams.stderr, error.message + '\n');

@@ -127,7 +127,7 @@ describe('an editor', () => {
 		expect(form.status).toBe(400);
 		const html = await form.text();
 		expect(html).toContain('Enter the farm name.');
-		expect(html).toContain('Hours cannot be negative.');
+		expect(html).toContain('Labour hours in a month must be at least 0 hours.');
 		expect(html).toContain('Enter the rate as a number.');
 		const api = await editor.json(`/api/v1/farms/${ownFarmId}`, 'PUT', {
 			...validSettings,

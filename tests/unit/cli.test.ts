@@ -28,7 +28,7 @@ describe('plan evaluate', () => {
 			const outcome = await plan('evaluate', file, '--against', 'scenarios/reference.json');
 			expect(outcome.code, `${file}: ${outcome.stderr}`).toBe(0);
 			const result = JSON.parse(outcome.stdout);
-			expect(result.formatVersion).toBe(1);
+			expect(result.formatVersion).toBe(2);
 			expect(result.plan.name).toEqual(expect.any(String));
 			expect(result.farmYears).toHaveLength(5);
 			for (const farmYear of result.farmYears) {
@@ -103,7 +103,7 @@ describe('plan evaluate', () => {
 		expect(notJson.stderr).toMatch(/truncated\.json: not valid JSON/);
 		expect(invalid.code).toBe(2);
 		expect(invalid.stdout).toBe('');
-		expect(invalid.stderr).toContain('fields.3.acres: Must be more than 0');
+		expect(invalid.stderr).toContain('fields.3.acres: Field area must be at least 0.01 acres.');
 		expect(invalid.stderr).toContain(
 			'plan.fieldRotations.2.rotationId: Unknown rotation "corn-corn"'
 		);

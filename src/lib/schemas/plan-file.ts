@@ -562,27 +562,35 @@ function checkReferences(doc: Shape, crops: Map<string, CropDefinition>, ctx: z.
  * The parsed document: the crop list holds the built-ins with the file's own, and each practice's
  * residue grazing states its leaf and husk per unit (the crop's own figure when the file leaves it out).
  */
-export const planDocumentSchema = planDocumentShape.transform((doc, ctx) => {
-	const crops = cropsWithBuiltIns(doc.crops);
-	const cropById = new Map(crops.map((crop) => [crop.id, crop]));
-	checkReferences(doc, cropById, ctx);
-	return {
-		...doc,
-		crops,
-		practices: doc.practices.map((practice) => {
-			const residue = practice.residueGrazing;
-			if (!residue) return { ...practice, residueGrazing: null };
-			const ownFigure = cropById.get(practice.crop)?.residueLeafHuskLbDmPerUnit ?? 0;
-			return {
-				...practice,
-				residueGrazing: {
-					utilisationPercent: residue.utilisationPercent,
-					leafHuskLbDmPerUnit: residue.leafHuskLbDmPerUnit ?? ownFigure
-				}
-			};
-		})
-	};
-});
+const cropMap = (doc: Shape) =>
+	new Map(cropsWithBuiltIns(doc.crops.filter((crop) => crop?.id)).map((crop) => [crop.id, crop]));
+
+/**
+ * The parsed document: the crop list holds the built-ins with the file's own, and each practice's
+ * residue grazing states its leaf and husk per unit (the crop's own figure when the file leaves it out).
+ * References are checked even when some values are out of range, so one pass names every problem.
+ */
+export const planDocumentSchema = planDocumentShape
+	.superRefine((doc, ctx) => checkReferences(doc, cropMap(doc), ctx))
+	.transform((doc) => {
+		const cropById = cropMap(doc);
+		return {
+			...doc,
+			crops: [...cropById.values()],
+			practices: doc.practices.map((practice) => {
+				const residue = practice.residueGrazing;
+				if (!residue) return { ...practice, residueGrazing: null };
+				const ownFigure = cropById.get(practice.crop)?.residueLeafHuskLbDmPerUnit ?? 0;
+				return {
+					...practice,
+					residueGrazing: {
+						utilisationPercent: residue.utilisationPercent,
+						leafHuskLbDmPerUnit: residue.leafHuskLbDmPerUnit ?? ownFigure
+					}
+				};
+			})
+		};
+	});
 
 export type PlanDocument = z.output<typeof planDocumentSchema>;
 export type PlanDocumentInput = z.input<typeof planDocumentSchema>;

@@ -552,8 +552,10 @@ function checkReferences(doc: Shape, crops: Map<string, CropDefinition>, ctx: z.
 			}
 		}
 	});
+	// References are checked even when a value is out of range: a plan length past its range is not walked.
 	const { startYear, years } = doc.plan.horizon;
-	for (let year = startYear; year < startYear + years; year++) {
+	const yearsToCheck = Number.isInteger(years) && years >= 1 && years <= 30 ? years : 0;
+	for (let year = startYear; year < startYear + yearsToCheck; year++) {
 		if (!priceSetIndexByYear.has(year)) refuse(['priceSets'], `No price set for plan year ${year}`);
 	}
 }

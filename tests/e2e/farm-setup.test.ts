@@ -200,9 +200,24 @@ describe.each(Object.entries(viewports))('at %s width', (size, viewport) => {
 		await expect(page.locator('tr[data-field="North Forty"]').count()).resolves.toBe(0);
 
 		await page.goto(`${home}/crops`);
+		await page.getByLabel('Crop name').fill('Flax');
+		await page.getByRole('button', { name: 'Add crop' }).click();
+		// Sold by the bushel (the first choice) needs the bushel's weight: said before anything is sent.
+		await page.locator('[data-error-for="lbPerUnit"]').waitFor();
+		await page.getByLabel('Pounds per unit (lb)').fill('56');
+		await page.getByRole('button', { name: 'Add crop' }).click();
+		await page.waitForURL(/\?added=flax$/);
 		expect(await overflow(page)).toBeLessThanOrEqual(0);
 		expect(await smallTargets(page)).toEqual([]);
 		await screenshot(page, `crops-owner-${size}`);
+		await page.getByRole('link', { name: 'Edit Flax' }).click();
+		await page.waitForURL(/\/crops\/flax$/);
+		expect(await overflow(page)).toBeLessThanOrEqual(0);
+		expect(await smallTargets(page)).toEqual([]);
+		await screenshot(page, `crop-edit-${size}`);
+		await page.getByRole('link', { name: 'Delete…' }).click();
+		await page.waitForURL(/confirm=delete$/);
+		await screenshot(page, `crop-delete-${size}`);
 		await page.close();
 		await context.clearCookies();
 	});

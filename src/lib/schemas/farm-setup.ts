@@ -26,8 +26,17 @@ export function fieldFormSchema(area: Range & { unit: string }) {
 }
 export type FieldForm = z.output<ReturnType<typeof fieldFormSchema>>;
 
-/** The crop form: a crop less its id (made from the name); the crop schema's own checks run after. */
-export const cropFormSchema = cropSchema.in.omit({ id: true });
+/**
+ * The crop form: a crop less its id (made from the name). The crop schema's own check of the weight (a
+ * bushel needs it; cwt, ton and lb state theirs) runs here too, so the browser shows it as the server would.
+ */
+export const cropFormSchema = cropSchema.in.omit({ id: true }).superRefine((crop, ctx) => {
+	const checked = cropSchema.safeParse({ ...crop, id: 'crop' });
+	if (checked.success) return;
+	for (const issue of checked.error.issues) {
+		if (issue.path[0] === 'lbPerUnit') ctx.addIssue({ ...issue, code: 'custom' });
+	}
+});
 export type CropForm = z.output<typeof cropFormSchema>;
 
 /** A crop as the API takes it: a plan file's crop, its `id` made from the name when not given. */

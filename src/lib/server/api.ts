@@ -10,6 +10,16 @@ export function invalidInput(error: z.ZodError) {
 	);
 }
 
+/** The same 422 for a problem only the database can see (an id another row already has). */
+export function invalidValue(path: string, message: string) {
+	return json({ message: 'The input is not valid.', issues: [{ path, message }] }, { status: 422 });
+}
+
+/** 409: the request is valid but the farm's data refuses it (a field a plan uses); `detail` names what. */
+export function conflict(message: string, detail: Record<string, unknown> = {}) {
+	return json({ message, issues: [{ path: '(document)', message }], ...detail }, { status: 409 });
+}
+
 /**
  * Reads a JSON body. A body over the server's size limit (adapter-node's BODY_SIZE_LIMIT) is a 413
  * that names the limit; a body that is not JSON is a 400 with a plain message, not a crash.

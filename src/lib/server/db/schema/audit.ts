@@ -8,6 +8,12 @@ export interface AuditDetails {
 	'farm.created': Record<string, never>;
 	'farm.updated': Record<string, never>;
 	'plan.imported': { planId: string; name: string };
+	'field.created': { fieldId: string; name: string };
+	'field.updated': { fieldId: string; name: string };
+	'field.deleted': { fieldId: string; name: string };
+	'crop.created': { crop: string; name: string };
+	'crop.updated': { crop: string; name: string };
+	'crop.deleted': { crop: string; name: string };
 }
 export type AuditAction = keyof AuditDetails;
 

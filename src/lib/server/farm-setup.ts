@@ -1,0 +1,79 @@
+// What the fields and crops pages and API share: refusals worded once, and the area in the farm's unit.
+import { toMetric, toUs } from '$lib/engine/units';
+import { setError, type FormPathLeavesWithErrors, type SuperValidated } from 'sveltekit-superforms';
+import { cropSchema, type CropDefinition } from '$lib/schemas/crops';
+import { fieldFormSchema, type CropForm } from '$lib/schemas/farm-setup';
+import { toFieldIssues } from '$lib/schemas/issues';
+import type { Range } from '$lib/schemas/messages';
+import { fieldSchema } from '$lib/schemas/plan-file';
+import { unitSystems, type UnitSystem } from '$lib/unit-systems';
+
+const quoted = (names: string[]) => names.map((name) => `"${name}"`).join(', ');
+
+export function fieldKeyTakenMessage(key: string): string {
+	return `Another field of this farm has the key "${key}": choose another.`;
+}
+
+export function fieldInUseMessage(name: string, planNames: string[]): string {
+	const one = planNames.length === 1;
+	return `${name} is in ${one ? 'the plan' : 'the plans'} ${quoted(planNames)}: take it out of ${one ? 'that plan' : 'those plans'} before deleting it.`;
+}
+
+export function cropIdTakenMessage(id: string, builtIn: boolean): string {
+	return builtIn
+		? `"${id}" is a built-in crop: give your crop another id.`
+		: `The farm already has a crop with the id "${id}": choose another.`;
+}
+
+export function builtInCropMessage(name: string): string {
+	return `${name} is a built-in crop: it cannot be changed or deleted. Add a crop of your own instead.`;
+}
+
+export function cropInUseMessage(name: string, practiceNames: string[]): string {
+	const one = practiceNames.length === 1;
+	return `${name} is grown in ${one ? 'the practice' : 'the practices'} ${quoted(practiceNames)}: change ${one ? 'that practice' : 'those practices'} before deleting it.`;
+}
+
+/** The field form's area range in the farm's unit: the plan file's acre range, in hectares for metric. */
+export function fieldAreaRange(system: UnitSystem): Range & { unit: string } {
+	const { minValue, maxValue } = fieldSchema.shape.acres;
+	const min = minValue ?? 0;
+	const max = maxValue ?? 0;
+	if (system === 'us') return { min, max, unit: 'acres' };
+	// Rounded inwards to the hundredth shown, so an area inside the range is inside it in acres too.
+	const toHa = (acres: number) => toMetric(acres, 'area') * 100;
+	return { min: Math.ceil(toHa(min)) / 100, max: Math.floor(toHa(max)) / 100, unit: 'ha' };
+}
+
+/** A field's area for the form: acres, or hectares for metric, to the hundredth. */
+export function shownArea(acres: number, system: UnitSystem): number {
+	const area = system === 'us' ? acres : toMetric(acres, 'area');
+	return Math.round(area * 100) / 100;
+}
+
+/** The area typed in the form (acres, or hectares for metric), in acres to the hundredth the table keeps. */
+export function acresFromShownArea(area: number, system: UnitSystem): number {
+	const acres = system === 'us' ? area : toUs(area, 'area');
+	return Math.round(acres * 100) / 100;
+}
+
+/** The fields form's schema for each unit system, built once (the form library caches per schema). */
+export const fieldFormSchemas = new Map(
+	unitSystems.map((system) => [system, fieldFormSchema(fieldAreaRange(system))])
+);
+
+/**
+ * The crop form's values as a crop, by the crop schema's own checks (a bushel needs its weight; cwt, ton
+ * and lb state theirs); undefined after putting the schema's messages on the form beside their inputs.
+ */
+export function cropFromForm(
+	form: SuperValidated<CropForm>,
+	id: string
+): CropDefinition | undefined {
+	const crop = cropSchema.safeParse({ ...form.data, id });
+	if (crop.success) return crop.data;
+	for (const { path, message } of toFieldIssues(crop.error)) {
+		setError(form, path as FormPathLeavesWithErrors<CropForm>, message);
+	}
+	return undefined;
+}

@@ -1,0 +1,254 @@
+// The fields and crops pages in Chromium: a field added through the form (checked as the user leaves
+// each input), a reviewer's read-only view, and screenshots at phone and desktop width.
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { BrowserContext, Page } from 'playwright-core';
+import { openBrowser, screenshot, signInAs, viewports } from '../support/browser';
+import { demoUsers } from '../support/server';
+
+let context: BrowserContext;
+let close: () => Promise<void>;
+let farmPath: string;
+
+beforeAll(async () => {
+	({ context, close } = await openBrowser());
+	// A new account and farm of the test's own, made through the forms; the demo farm is only read.
+	const page = await context.newPage();
+	await page.goto('/register');
+	await page.getByLabel('Your name').fill('Fields Tester');
+	await page
+		.getByLabel('E-mail')
+		.fill(`fields-e2e-${crypto.randomUUID().slice(0, 8)}@example.test`);
+	await page.getByLabel('Password', { exact: true }).fill('fields-password');
+	await page.getByLabel('Password again').fill('fields-password');
+	await page.getByRole('button', { name: 'Create account' }).click();
+	await page.waitForURL('**/farms');
+	const formOpen = await page.locator('details').evaluate((d) => (d as HTMLDetailsElement).open);
+	if (!formOpen) await page.getByText('New farm…').click();
+	await page.getByLabel('Farm name').fill('Fields e2e farm');
+	await page.getByRole('button', { name: 'Create farm' }).click();
+	await page.waitForURL(/\/farms\/[0-9a-f-]{36}$/);
+	farmPath = new URL(page.url()).pathname;
+	await page.close();
+});
+afterAll(() => close());
+
+/** How far the page is wider than the window, with what sticks out when it is (to find the cause). */
+const overflow = async (page: Page) => {
+	const { wider, outside } = await page.evaluate(() => ({
+		wider: document.documentElement.scrollWidth - window.innerWidth,
+		outside: [...document.querySelectorAll('body *')]
+			.filter((el) => el.getBoundingClientRect().right > window.innerWidth + 1)
+			.filter((el) => !el.closest('.overflow-x-auto'))
+			.map((el) => `${el.tagName} ${el.className} ${el.textContent?.slice(0, 30)}`)
+	}));
+	if (wider > 0) console.log(outside);
+	return wider;
+};
+
+/** Buttons and links in the page's main part smaller than a 44 px touch target, by their text. */
+const smallTargets = (page: Page) =>
+	page.evaluate(() =>
+		[...document.querySelectorAll('main a, main button, main input, main select')]
+			.filter((el) => {
+				const box = el.getBoundingClientRect();
+				if (el instanceof HTMLInputElement && el.type === 'checkbox') return false;
+				return box.width > 0 && box.height < 44;
+			})
+			.map((el) => el.textContent?.trim() || el.getAttribute('name'))
+	);
+
+async function addField(page: Page, name: string, acres: string, key: string) {
+	await page.getByLabel('Field name').fill(name);
+	await page.getByLabel('Area (ac)').fill(acres);
+	await page.getByRole('button', { name: 'Add field' }).click();
+	await page.waitForURL((url) => url.searchParams.get('added') === key);
+}
+
+describe('an owner', () => {
+	it('adds a field through the form; a slip is shown as soon as the user leaves the input', async () => {
+		const page = await context.newPage();
+		await page.goto(`${farmPath}/fields`);
+		await page.getByLabel('Field name').fill('Creek Bottom');
+		await page.getByLabel('Area (ac)').fill('-3');
+		await page.getByLabel('Productivity index').focus();
+		const error = page.locator('[data-error-for="area"]');
+		await error.waitFor();
+		await expect(error.textContent()).resolves.toContain('Field area must be at least 0.01 acres.');
+		expect(page.url()).not.toContain('added');
+
+		await page.getByLabel('Area (ac)').fill('22.5');
+		await page.getByLabel('Productivity index').fill('1.1');
+		await page.getByLabel('Prior crop').fill('soybean');
+		await page.getByRole('button', { name: 'Add field' }).click();
+		await page.waitForURL(/\?added=creek-bottom$/);
+		await expect(page.getByRole('status').textContent()).resolves.toContain('Field added.');
+		const row = page.locator('tr[data-field="Creek Bottom"]');
+		await expect(row.locator('td').nth(1).textContent()).resolves.toBe('22.50');
+		await expect(row.locator('td').nth(3).textContent()).resolves.toBe('soybean');
+		await addField(page, 'Schoolhouse Forty', '40', 'schoolhouse-forty');
+		await addField(
+			page,
+			'Home Quarter — west half with the old yard site',
+			'78.25',
+			'home-quarter-west-half-with-the-old-yard-site'
+		);
+		await expect(page.getByTestId('field-totals').textContent()).resolves.toMatch(
+			/3 fields\s*140\.75/
+		);
+		await page.close();
+	});
+
+	it('sorts the table by a heading, and back', async () => {
+		const page = await context.newPage();
+		await page.goto(`${farmPath}/fields`);
+		await page.locator('a[data-sort="area"]').click();
+		await page.waitForURL(/sort=area&dir=asc/);
+		const names = () => page.locator('tbody tr td:first-child').allTextContents();
+		await expect(names()).resolves.toEqual([
+			'Creek Bottom',
+			'Schoolhouse Forty',
+			'Home Quarter — west half with the old yard site'
+		]);
+		await page.locator('a[data-sort="area"]').click();
+		await page.waitForURL(/sort=area&dir=desc/);
+		await expect(names()).resolves.toEqual([
+			'Home Quarter — west half with the old yard site',
+			'Schoolhouse Forty',
+			'Creek Bottom'
+		]);
+		await page.close();
+	});
+
+	it('adds a crop of the farm’s own', async () => {
+		const page = await context.newPage();
+		await page.goto(`${farmPath}/crops`);
+		await page.getByLabel('Crop name').fill('Grain sorghum');
+		await page.getByLabel('Sold by the').selectOption('cwt');
+		await page.getByRole('button', { name: 'Add crop' }).click();
+		await page.waitForURL(/\?added=grain-sorghum$/);
+		const row = page.locator('tr[data-crop="grain-sorghum"]');
+		await expect(row.locator('td').nth(2).textContent()).resolves.toBe('100');
+		await expect(page.locator('tr[data-crop="corn"]').textContent()).resolves.toContain('built in');
+		await page.close();
+	});
+});
+
+describe('a reviewer (the demo lender)', () => {
+	it('sees the demo farm’s fields with no edit controls', async () => {
+		await context.clearCookies();
+		const page = await context.newPage();
+		await signInAs(page, demoUsers.lender);
+		await page.waitForURL('**/farms');
+		await page.getByText('Maple Coulee Farm').click();
+		await page.waitForURL(/\/farms\/[0-9a-f-]{36}$/);
+		await page.getByRole('link', { name: 'Fields page' }).click();
+		await page.waitForURL(/\/fields$/);
+		await expect(page.getByRole('cell', { name: 'North Flat' }).isVisible()).resolves.toBe(true);
+		await expect(page.getByRole('heading', { name: 'Add a field' }).count()).resolves.toBe(0);
+		await expect(page.getByRole('link', { name: /^Edit/ }).count()).resolves.toBe(0);
+		await expect(page.locator('main form').count()).resolves.toBe(0);
+		await page.goto(page.url().replace(/fields$/, 'crops'));
+		await expect(page.getByRole('heading', { name: 'Add a crop' }).count()).resolves.toBe(0);
+		await page.close();
+		await context.clearCookies();
+	});
+});
+
+describe.each(Object.entries(viewports))('at %s width', (size, viewport) => {
+	it('the owner’s fields, field, delete and crops pages fit, with big enough targets', async () => {
+		const page = await context.newPage();
+		await page.setViewportSize(viewport);
+		// An owner of its own for each width, so each screenshot shows the same two fields.
+		await context.clearCookies();
+		await page.goto('/register');
+		await page.getByLabel('Your name').fill('Screens');
+		await page
+			.getByLabel('E-mail')
+			.fill(`fields-shots-${crypto.randomUUID().slice(0, 8)}@example.test`);
+		await page.getByLabel('Password', { exact: true }).fill('fields-password');
+		await page.getByLabel('Password again').fill('fields-password');
+		await page.getByRole('button', { name: 'Create account' }).click();
+		await page.waitForURL('**/farms');
+		const formOpen = await page.locator('details').evaluate((d) => (d as HTMLDetailsElement).open);
+		if (!formOpen) await page.getByText('New farm…').click();
+		await page.getByLabel('Farm name').fill(`Shots ${size}`);
+		await page.getByRole('button', { name: 'Create farm' }).click();
+		await page.waitForURL(/\/farms\/[0-9a-f-]{36}$/);
+		const home = new URL(page.url()).pathname;
+		await page.goto(`${home}/fields`);
+		await addField(page, 'North Forty', '40.5', 'north-forty');
+		await addField(page, 'Creek Bottom', '22', 'creek-bottom');
+		await page.getByLabel('Field name').fill('');
+		await page.getByLabel('Area (ac)').fill('30000');
+		await page.getByRole('button', { name: 'Add field' }).click();
+		await page.locator('[data-error-for="area"]').waitFor();
+		await screenshot(page, `fields-owner-${size}`);
+		await page.locator('[data-error-for="name"]').waitFor();
+		expect(await overflow(page)).toBeLessThanOrEqual(0);
+		expect(await smallTargets(page)).toEqual([]);
+
+		await page.getByRole('link', { name: 'Edit North Forty' }).click();
+		await page.waitForURL(/\/fields\/[0-9a-f-]{36}$/);
+		expect(await overflow(page)).toBeLessThanOrEqual(0);
+		expect(await smallTargets(page)).toEqual([]);
+		await screenshot(page, `field-edit-${size}`);
+		await page.getByRole('link', { name: 'Delete…' }).click();
+		await page.waitForURL(/confirm=delete$/);
+		await screenshot(page, `field-delete-${size}`);
+		await page.getByRole('button', { name: 'Delete field' }).click();
+		await page.waitForURL(/\/fields$/);
+		await expect(page.locator('tr[data-field="North Forty"]').count()).resolves.toBe(0);
+
+		await page.goto(`${home}/crops`);
+		await page.getByLabel('Crop name').fill('Flax');
+		await page.getByRole('button', { name: 'Add crop' }).click();
+		// Sold by the bushel (the first choice) needs the bushel's weight: said before anything is sent.
+		await page.locator('[data-error-for="lbPerUnit"]').waitFor();
+		await page.getByLabel('Pounds per unit (lb)').fill('56');
+		await page.getByRole('button', { name: 'Add crop' }).click();
+		await page.waitForURL(/\?added=flax$/);
+		expect(await overflow(page)).toBeLessThanOrEqual(0);
+		expect(await smallTargets(page)).toEqual([]);
+		await screenshot(page, `crops-owner-${size}`);
+		await page.getByRole('link', { name: 'Edit Flax' }).click();
+		await page.waitForURL(/\/crops\/flax$/);
+		expect(await overflow(page)).toBeLessThanOrEqual(0);
+		expect(await smallTargets(page)).toEqual([]);
+		await screenshot(page, `crop-edit-${size}`);
+		await page.getByRole('link', { name: 'Delete…' }).click();
+		await page.waitForURL(/confirm=delete$/);
+		await screenshot(page, `crop-delete-${size}`);
+		await page.close();
+		await context.clearCookies();
+	});
+
+	it('the demo farm’s fields for the reviewer: the first column stays in view as the table scrolls', async () => {
+		await context.clearCookies();
+		const page = await context.newPage();
+		await page.setViewportSize(viewport);
+		await signInAs(page, demoUsers.lender);
+		await page.waitForURL('**/farms');
+		await page.getByText('Maple Coulee Farm').click();
+		await page.waitForURL(/\/farms\/[0-9a-f-]{36}$/);
+		await page.goto(`${new URL(page.url()).pathname}/fields`);
+		await screenshot(page, `fields-reviewer-${size}`);
+		expect(await overflow(page)).toBeLessThanOrEqual(0);
+		const firstCell = page.getByRole('cell', { name: 'North Flat' });
+		const before = await firstCell.boundingBox();
+		const scrolled = await page.locator('table').evaluate((table) => {
+			const box = table.parentElement!;
+			box.scrollLeft = box.scrollWidth;
+			return box.scrollLeft;
+		});
+		const after = await firstCell.boundingBox();
+		// On a phone the table is wider than the window and scrolls; its first column does not move.
+		if (size === 'phone') expect(scrolled).toBeGreaterThan(0);
+		expect(after?.x).toBe(before?.x);
+		await screenshot(page, `fields-reviewer-scrolled-${size}`);
+		await page.goto(page.url().replace(/fields$/, 'crops'));
+		expect(await overflow(page)).toBeLessThanOrEqual(0);
+		await screenshot(page, `crops-reviewer-${size}`);
+		await page.close();
+		await context.clearCookies();
+	});
+});

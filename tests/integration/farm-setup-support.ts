@@ -1,0 +1,68 @@
+// Set-up shared by the fields and crops tests: a farm of a new owner's own, a reviewer of it, and
+// snapshots of what the farm holds, to show a refused request changed nothing.
+import { readFileSync } from 'node:fs';
+import { asc, eq } from 'drizzle-orm';
+import { expect } from 'vitest';
+import { parsePlanDocument } from '../../src/lib/schemas/plan-file';
+import type { Db } from '../../src/lib/server/db/client';
+import { importPlanDocument } from '../../src/lib/server/db/plan-documents';
+import { auditLog, crops, fields, memberships, users } from '../../src/lib/server/db/schema';
+import { Client, newUser } from '../support/http';
+
+export const farmSettings = (name: string) => ({
+	name,
+	region: 'Test',
+	unitSystem: 'us',
+	labourHoursAvailableByMonth: Array(12).fill(200),
+	interestRatePercent: 6
+});
+
+/** A new owner with a new farm of their own (never the demo farm). */
+export async function ownFarm(label: string, unitSystem: 'us' | 'metric' = 'us') {
+	const owner = await newUser(label);
+	const response = await owner.json('/api/v1/farms', 'POST', {
+		...farmSettings(`${label} farm`),
+		unitSystem
+	});
+	expect(response.status).toBe(201);
+	const farmId: string = (await response.json()).farm.id;
+	return { owner, farmId };
+}
+
+/** A new account made a reviewer of the farm (no page adds members yet, so the row is written here). */
+export async function reviewerOf(db: Db, farmId: string, label: string): Promise<Client> {
+	const client = new Client();
+	const email = `${label}-${crypto.randomUUID().slice(0, 8)}@example.test`;
+	const password = 'a-long-test-password';
+	await client.postForm('/register', {
+		providerId: 'credentials',
+		name: `Test ${label}`,
+		email,
+		password,
+		confirmPassword: password
+	});
+	expect(client.hasSession()).toBe(true);
+	const [user] = await db.select({ id: users.id }).from(users).where(eq(users.email, email));
+	await db.insert(memberships).values({ farmId, userId: user.id, role: 'reviewer' });
+	return client;
+}
+
+/** Imports scenarios/reference.json into the farm: its 14 fields, practices and the plan that uses them. */
+export async function importReferencePlan(db: Db, farmId: string) {
+	const parsed = parsePlanDocument(JSON.parse(readFileSync('scenarios/reference.json', 'utf8')));
+	if (!parsed.ok) throw new Error(JSON.stringify(parsed.issues));
+	await db.transaction((tx) =>
+		importPlanDocument(tx, { farmId, userId: null, doc: parsed.plan, isReference: true })
+	);
+	return parsed.plan;
+}
+
+/** Everything a fields or crops request could write for the farm: its fields, crops and audit entries. */
+export async function farmSnapshot(db: Db, farmId: string) {
+	const [fieldRows, cropRows, auditRows] = await Promise.all([
+		db.select().from(fields).where(eq(fields.farmId, farmId)).orderBy(asc(fields.id)),
+		db.select().from(crops).where(eq(crops.farmId, farmId)).orderBy(asc(crops.id)),
+		db.select().from(auditLog).where(eq(auditLog.farmId, farmId)).orderBy(asc(auditLog.id))
+	]);
+	return { fieldRows, cropRows, auditRows };
+}

@@ -7,6 +7,7 @@
 import { readFileSync } from 'node:fs';
 import { performance } from 'node:perf_hooks';
 import { evaluatePlan } from '../src/lib/engine';
+import { nonFiniteNumberPaths } from '../src/lib/engine/finite';
 import { parsePlanDocument, type PlanDocument } from '../src/lib/schemas/plan-file';
 
 const fieldCount = 100;
@@ -100,6 +101,7 @@ referenceJson.plan.fieldRotations = (
 });
 const referenceFor100 = validated(referenceJson);
 const fieldYears = evaluatePlan(plan).fieldYears.length;
+const budgeted = evaluatePlan(plan, referenceFor100);
 
 const rows = [
 	{
@@ -111,6 +113,11 @@ const rows = [
 		what: 'evaluate + partial budget',
 		ms: medianMs(() => evaluatePlan(plan, referenceFor100)),
 		target: targetsMs.partialBudget
+	},
+	{
+		what: '  of which: finite check',
+		ms: medianMs(() => nonFiniteNumberPaths(budgeted)),
+		target: null
 	},
 	{
 		what: 'validate + evaluate',

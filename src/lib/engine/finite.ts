@@ -1,7 +1,12 @@
 /** Paths (`fieldYears.3.revenueUsd`) of every number in a result that is NaN or infinite. */
 export function nonFiniteNumberPaths(value: unknown, limit = 20): string[] {
 	// A quick pass first: results are almost always clean, and building paths costs more than checking.
-	if (allFinite(value)) return [];
+	if (
+		typeof value === 'number'
+			? Number.isFinite(value)
+			: typeof value !== 'object' || value === null || allFinite(value)
+	)
+		return [];
 	const found: string[] = [];
 	const walk = (node: unknown, path: string) => {
 		if (found.length >= limit) return;
@@ -19,14 +24,22 @@ export function nonFiniteNumberPaths(value: unknown, limit = 20): string[] {
 	return found;
 }
 
-function allFinite(node: unknown): boolean {
-	if (typeof node === 'number') return Number.isFinite(node);
+/** True when every number below `node` is finite; numbers are checked in the loop, not by a call each. */
+function allFinite(node: object): boolean {
 	if (Array.isArray(node)) {
-		for (let i = 0; i < node.length; i++) if (!allFinite(node[i])) return false;
+		for (let i = 0; i < node.length; i++) {
+			const v = node[i];
+			if (typeof v === 'number') {
+				if (!Number.isFinite(v)) return false;
+			} else if (typeof v === 'object' && v !== null && !allFinite(v)) return false;
+		}
 		return true;
 	}
-	if (node !== null && typeof node === 'object') {
-		for (const key in node) if (!allFinite((node as Record<string, unknown>)[key])) return false;
+	for (const key in node) {
+		const v = (node as Record<string, unknown>)[key];
+		if (typeof v === 'number') {
+			if (!Number.isFinite(v)) return false;
+		} else if (typeof v === 'object' && v !== null && !allFinite(v)) return false;
 	}
 	return true;
 }

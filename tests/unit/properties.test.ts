@@ -108,7 +108,8 @@ describe('invariants', () => {
 				const budget = result.partialBudget!;
 				budget.years.forEach((year, i) => {
 					const change = result.farmYears[i].netReturnUsd - referenceYears[i].netReturnUsd;
-					expect(year.netChangeUsd).toBeCloseTo(change, 4);
+					// Lines under a hundredth of a cent are left out, so within a cent overall
+					expect(Math.abs(year.netChangeUsd - change)).toBeLessThan(0.01);
 					const sumOf = (lines: { amountUsd: number }[]) =>
 						lines.reduce((s, l) => s + l.amountUsd, 0);
 					expect(year.addedCostsUsd).toBeCloseTo(sumOf(year.lines.addedCosts), 6);

@@ -2,12 +2,12 @@
 // snapshots of what the farm holds, to show a refused request changed nothing.
 import { readFileSync } from 'node:fs';
 import { asc, eq } from 'drizzle-orm';
-import { expect } from 'vitest';
 import { parsePlanDocument } from '../../src/lib/schemas/plan-file';
 import type { Db } from '../../src/lib/server/db/client';
 import { importPlanDocument } from '../../src/lib/server/db/plan-documents';
-import { auditLog, crops, fields, memberships, users } from '../../src/lib/server/db/schema';
-import { Client, newUser } from '../support/http';
+import { auditLog, crops, fields } from '../../src/lib/server/db/schema';
+import { addMember, createFarm } from '../support/farms';
+import { newUser, registerUser, type Client } from '../support/http';
 
 export const farmSettings = (name: string) => ({
 	name,
@@ -20,30 +20,14 @@ export const farmSettings = (name: string) => ({
 /** A new owner with a new farm of their own (never the demo farm). */
 export async function ownFarm(label: string, unitSystem: 'us' | 'metric' = 'us') {
 	const owner = await newUser(label);
-	const response = await owner.json('/api/v1/farms', 'POST', {
-		...farmSettings(`${label} farm`),
-		unitSystem
-	});
-	expect(response.status).toBe(201);
-	const farmId: string = (await response.json()).farm.id;
+	const farmId = await createFarm(owner, { ...farmSettings(`${label} farm`), unitSystem });
 	return { owner, farmId };
 }
 
-/** A new account made a reviewer of the farm (no page adds members yet, so the row is written here). */
+/** A new account made a reviewer of the farm. */
 export async function reviewerOf(db: Db, farmId: string, label: string): Promise<Client> {
-	const client = new Client();
-	const email = `${label}-${crypto.randomUUID().slice(0, 8)}@example.test`;
-	const password = 'a-long-test-password';
-	await client.postForm('/register', {
-		providerId: 'credentials',
-		name: `Test ${label}`,
-		email,
-		password,
-		confirmPassword: password
-	});
-	expect(client.hasSession()).toBe(true);
-	const [user] = await db.select({ id: users.id }).from(users).where(eq(users.email, email));
-	await db.insert(memberships).values({ farmId, userId: user.id, role: 'reviewer' });
+	const { client, email } = await registerUser(label);
+	await addMember(db, farmId, email, 'reviewer');
 	return client;
 }
 

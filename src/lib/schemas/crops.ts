@@ -20,6 +20,7 @@ export const lbPerFixedSaleUnit = new Map<SaleUnit, number>([
 /** Enterprise names the partial budget uses besides crops: a crop may not take them. */
 export const reservedEnterpriseIds = ['herd', 'farm'] as const;
 
+// Ranges catch slips (common practice, no published source): no sale unit outweighs a 2,000 lb ton.
 const cropShape = z.strictObject({
 	id: id('the crop id').refine(
 		(value) => !(reservedEnterpriseIds as readonly string[]).includes(value),

@@ -11,7 +11,8 @@ import { upgradeFormat1 } from './plan-file-format-1';
  * bu, gal, ft, mph); `farm.unitSystem` only chooses how the app shows them. Every default the engine
  * relies on is written here with `.default()`, so a parsed document states every input the engine uses.
  * Ranges are plausible bounds a farm's numbers stay inside: they catch slips (a missed decimal point)
- * and keep every result a finite number.
+ * and keep every result a finite number. They are common practice, no published source, unless a
+ * source is named beside one.
  */
 
 export const currentFormatVersion = 2;

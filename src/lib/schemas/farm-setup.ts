@@ -1,7 +1,7 @@
 import { z } from 'zod';
 import { cropSchema } from './crops';
 import { amount, id, type Range } from './messages';
-import { fieldSchema } from './plan-file';
+import { cashRentMessage, fieldSchema } from './plan-file';
 
 /**
  * Fields and crops as the farm set-up pages and `/api/v1/farms/[farmId]/fields|crops` take them: the plan
@@ -15,14 +15,29 @@ import { fieldSchema } from './plan-file';
 /** A field as the API takes it (POST; PATCH merges its body over the stored field first). */
 export const fieldBodySchema = fieldSchema
 	.omit({ id: true })
-	.extend({ key: id('the field key').optional() });
+	.extend({ key: id('the field key').optional() })
+	.superRefine((field, ctx) => {
+		const message = cashRentMessage(field);
+		if (message) ctx.addIssue({ code: 'custom', path: ['cashRentUsdPerAcre'], message });
+	});
 export type FieldBody = z.output<typeof fieldBodySchema>;
 
 /** What the fields form shows, with the area in the farm's own unit (acres or hectares). */
 export function fieldFormSchema(area: Range & { unit: string }) {
 	return fieldSchema
-		.pick({ name: true, productivityIndex: true, priorCrop: true, notes: true })
-		.extend({ area: amount('field area', area) });
+		.pick({
+			name: true,
+			productivityIndex: true,
+			priorCrop: true,
+			tenure: true,
+			cashRentUsdPerAcre: true,
+			notes: true
+		})
+		.extend({ area: amount('field area', area) })
+		.superRefine((field, ctx) => {
+			const message = cashRentMessage(field);
+			if (message) ctx.addIssue({ code: 'custom', path: ['cashRentUsdPerAcre'], message });
+		});
 }
 export type FieldForm = z.output<ReturnType<typeof fieldFormSchema>>;
 

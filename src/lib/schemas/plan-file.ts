@@ -2,7 +2,8 @@ import { z } from 'zod';
 import { cropSchema, cropsWithBuiltIns, type CropDefinition } from './crops';
 import { farmSchema } from './farm';
 import { toFieldIssues, type FieldIssue } from './issues';
-import { amount, id, list, month, percent, text } from './messages';
+import { isFamilyLabour, personRoles, tenures } from '../farm-lists';
+import { amount, choice, id, list, month, percent, text } from './messages';
 import { upgradeFormat1 } from './plan-file-format-1';
 
 /**
@@ -41,7 +42,42 @@ export const fieldSchema = z.strictObject({
 	})
 		.default(0)
 		.describe("N credit the crop grown before the plan's first year leaves for that year."),
+	tenure: choice('the tenure', tenures).default('owned'),
+	// Iowa State's cash rent survey puts most county averages at $150–350 an acre (from memory); 2,000
+	// bounds a slip such as 2500 typed for 250.0.
+	cashRentUsdPerAcre: amount('the cash rent', { min: 0, max: 2000, usdPer: 'acre a year' })
+		.default(0)
+		.describe("Cash rent a year: the field's land cost in the budgets. 0 for owned land."),
 	notes: notes('field notes')
+});
+
+/** Why a field's rent does not fit its tenure, or null when it does (the file and the API both ask). */
+export function cashRentMessage(
+	field: Pick<z.output<typeof fieldSchema>, 'tenure' | 'cashRentUsdPerAcre'>
+) {
+	return field.tenure === 'owned' && field.cashRentUsdPerAcre > 0
+		? 'An owned field pays no cash rent: set the tenure to cash-rented or the rent to 0.'
+		: null;
+}
+
+/** Someone who works on the farm; the farm's labour hours are the operator's, partners' and family's. */
+export const personSchema = z.strictObject({
+	id: id('the person id'),
+	name: name('the name'),
+	role: choice('the role', personRoles),
+	hoursAvailableByMonth: list(
+		'hours for each month',
+		// 31 days × 24 h: more than that is a typing slip.
+		amount('hours in a month', { min: 0, max: 744, unit: 'hours' }),
+		{ max: 12 }
+	)
+		.length(12, { error: 'Give hours for all 12 months, January to December.' })
+		.describe('Hours free for farm work each month, January to December (less any off-farm job).'),
+	wageUsdPerHour: amount('the wage', { min: 0, max: 500, usdPer: 'hour' })
+		.nullable()
+		.default(null)
+		.describe('Hired help only: what an hour costs.'),
+	notes: notes('notes')
 });
 
 const choreHours = (label: string) => amount(label, { min: 0, max: 24, unit: 'hours a day' });
@@ -365,6 +401,11 @@ const planDocumentShape = z.strictObject({
 		.default([])
 		.describe('Crops of your own beside the built-in eight; one with a built-in id replaces it.'),
 	fields: list('fields', fieldSchema, { min: 1, max: 2000 }),
+	people: list('people', personSchema, { max: 100 })
+		.default([])
+		.describe(
+			"Who works on the farm. When any are given, farm.labourHoursAvailableByMonth is the operator's, partners' and family's hours summed."
+		),
 	herd: herdSchema.nullable().default(null),
 	operations: list('operations', fieldOperationSchema, { max: 500 }).default([]),
 	practices: list('practices', cropPracticeSchema, { min: 1, max: 500 }),
@@ -387,6 +428,45 @@ const maxYieldGoalBySaleUnit = new Map([
 // A cent a bushel: below it the N price ratio is meaningless (and grows past any finite number).
 const minGrainPriceForResponse = 0.01;
 
+/** Hired help has a wage and family members none; the farm's hours are the family's summed. */
+function checkPeople(doc: Shape, refuse: (path: Path, message: string) => void) {
+	const family = doc.people.filter((person) => isFamilyLabour(person.role));
+	doc.people.forEach((person, i) => {
+		if (person.role === 'hired' && person.wageUsdPerHour === null) {
+			refuse(
+				['people', i, 'wageUsdPerHour'],
+				`Give ${person.name}'s wage: hired help is paid by the hour.`
+			);
+		}
+		if (person.role !== 'hired' && person.wageUsdPerHour !== null) {
+			refuse(['people', i, 'wageUsdPerHour'], 'Only hired help has a wage; leave it empty.');
+		}
+	});
+	if (!family.length) return;
+	const summed = familyHoursByMonth(doc.people);
+	const stated = doc.farm.labourHoursAvailableByMonth;
+	if (stated.length === 12 && summed.some((hours, m) => Math.abs(hours - stated[m]) > 0.5)) {
+		refuse(
+			['farm', 'labourHoursAvailableByMonth'],
+			`Farm labour hours must be the operator's, partners' and family's hours summed: ${summed.map((h) => Math.round(h)).join(', ')}.`
+		);
+	}
+}
+
+/** The operator's, partners' and family's hours summed by month: the farm's own labour. */
+export function familyHoursByMonth(
+	people: Pick<Person, 'role' | 'hoursAvailableByMonth'>[]
+): number[] {
+	const hours = Array.from({ length: 12 }, () => 0);
+	for (const person of people) {
+		if (!isFamilyLabour(person.role)) continue;
+		person.hoursAvailableByMonth.forEach((h, m) => {
+			if (m < 12) hours[m] += h;
+		});
+	}
+	return hours;
+}
+
 /** Refuses cross-references the shape alone cannot: unknown ids, duplicates, phases, missing prices. */
 function checkReferences(doc: Shape, crops: Map<string, CropDefinition>, ctx: z.RefinementCtx) {
 	const refuse = (path: Path, message: string) => ctx.addIssue({ code: 'custom', path, message });
@@ -400,6 +480,12 @@ function checkReferences(doc: Shape, crops: Map<string, CropDefinition>, ctx: z.
 	};
 	uniqueIds(doc.crops, 'crops');
 	const fieldIds = uniqueIds(doc.fields, 'fields');
+	uniqueIds(doc.people, 'people');
+	checkPeople(doc, refuse);
+	doc.fields.forEach((field, i) => {
+		const message = cashRentMessage(field);
+		if (message) refuse(['fields', i, 'cashRentUsdPerAcre'], message);
+	});
 	const operationIds = uniqueIds(doc.operations, 'operations');
 	const practiceIds = uniqueIds(doc.practices, 'practices');
 	uniqueIds(doc.rotations, 'rotations');
@@ -601,6 +687,7 @@ export type FieldOperation = PlanDocument['operations'][number];
 export type CropPractice = PlanDocument['practices'][number];
 export type PriceSet = PlanDocument['priceSets'][number];
 export type Herd = NonNullable<PlanDocument['herd']>;
+export type Person = z.output<typeof personSchema>;
 export type { CropDefinition };
 
 export type ParsePlanResult =

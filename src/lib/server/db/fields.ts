@@ -36,6 +36,8 @@ export async function listFieldsByFarm(db: Db | Tx, farmId: string) {
 			acres: true,
 			productivityIndex: true,
 			priorCrop: true,
+			tenure: true,
+			cashRentUsdPerAcre: true,
 			notes: true
 		},
 		where: eq(fields.farmId, farmId),
@@ -52,6 +54,8 @@ const fieldColumns = {
 	productivityIndex: true,
 	priorCrop: true,
 	priorCropNitrogenCreditLbPerAcre: true,
+	tenure: true,
+	cashRentUsdPerAcre: true,
 	notes: true
 } as const;
 
@@ -192,6 +196,8 @@ const fieldReturning = {
 	productivityIndex: fields.productivityIndex,
 	priorCrop: fields.priorCrop,
 	priorCropNitrogenCreditLbPerAcre: fields.priorCropNitrogenCreditLbPerAcre,
+	tenure: fields.tenure,
+	cashRentUsdPerAcre: fields.cashRentUsdPerAcre,
 	notes: fields.notes
 };
 

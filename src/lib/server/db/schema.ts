@@ -5,6 +5,7 @@ export * from './schema/farms';
 export * from './schema/crops';
 export * from './schema/fields';
 export * from './schema/herds';
+export * from './schema/people';
 export * from './schema/prices';
 export * from './schema/operations';
 export * from './schema/practices';

@@ -19,6 +19,7 @@ import { crops } from './crops';
 import { fieldOperations } from './operations';
 import { fields } from './fields';
 import { herds } from './herds';
+import { people } from './people';
 import { plans } from './plans';
 import { cropPractices } from './practices';
 import { priceSets } from './prices';
@@ -56,6 +57,7 @@ export const farmsRelations = relations(farms, ({ many }) => ({
 	crops: many(crops),
 	fields: many(fields),
 	herds: many(herds),
+	people: many(people),
 	priceSets: many(priceSets),
 	fieldOperations: many(fieldOperations),
 	cropPractices: many(cropPractices),

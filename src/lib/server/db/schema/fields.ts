@@ -1,8 +1,11 @@
 // What the farm has. Each part keeps the plan file's id as `key`, so files round-trip.
 import { relations } from 'drizzle-orm';
-import { numeric, pgTable, text, uniqueIndex, uuid } from 'drizzle-orm/pg-core';
+import { numeric, pgEnum, pgTable, text, uniqueIndex, uuid } from 'drizzle-orm/pg-core';
+import { tenures } from '../../../farm-lists';
 import { timestamps } from './columns';
 import { farmReference, farms } from './farms';
+
+export const fieldTenure = pgEnum('field_tenure', tenures);
 
 export const fields = pgTable(
 	'fields',
@@ -18,6 +21,9 @@ export const fields = pgTable(
 		priorCropNitrogenCreditLbPerAcre: numeric({ mode: 'number', precision: 7, scale: 2 })
 			.notNull()
 			.default(0),
+		tenure: fieldTenure().notNull().default('owned'),
+		/** Cash rent a year, the field's land cost in the budgets; 0 for owned land. */
+		cashRentUsdPerAcre: numeric({ mode: 'number', precision: 8, scale: 2 }).notNull().default(0),
 		notes: text().notNull().default(''),
 		...timestamps
 	},

@@ -33,6 +33,8 @@ export const fieldOperations = pgTable(
 		/** Stated per acre: hours as published, nothing derived. */
 		machineHoursPerAcre: numeric({ mode: 'number', precision: 6, scale: 4 }),
 		labourHoursPerAcre: numeric({ mode: 'number', precision: 6, scale: 4 }),
+		/** The catalogue default this operation was copied from (it names its source); null: the farm's own. */
+		copiedFrom: text(),
 		...timestamps
 	},
 	(t) => [uniqueIndex().on(t.farmId, t.key)]

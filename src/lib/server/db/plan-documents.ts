@@ -95,6 +95,8 @@ export async function exportPlanDocument(db: Db | Tx, planId: string): Promise<P
 			productivityIndex: field.productivityIndex,
 			priorCrop: field.priorCrop,
 			priorCropNitrogenCreditLbPerAcre: field.priorCropNitrogenCreditLbPerAcre,
+			tenure: field.tenure,
+			cashRentUsdPerAcre: field.cashRentUsdPerAcre,
 			notes: field.notes
 		})),
 		herd: version.herd,

@@ -140,6 +140,41 @@ describe('a metric farm', () => {
 		expect(tooBig.status).toBe(400);
 		expect(await tooBig.text()).toContain('Field area must be at most 8,093.71 ha.');
 	});
+
+	it('takes cash rent per hectare and stores it per acre; the list reads owned and rented area', async () => {
+		const { owner: metricOwner, farmId: metricFarm } = await ownFarm('pages-rent', 'metric');
+		const response = await metricOwner.postForm(`/farms/${metricFarm}/fields?/create`, {
+			name: 'Rented Flat',
+			area: '20',
+			productivityIndex: '1',
+			tenure: 'cash-rented',
+			cashRent: '600',
+			priorCrop: '',
+			notes: ''
+		});
+		expect(response.status).toBe(303);
+		// NIST SP 811: 1 acre = 0.4046873 ha, so $600/ha × 0.4046873 = $242.81/ac
+		expect(await fieldRow(metricFarm, 'rented-flat')).toMatchObject({
+			tenure: 'cash-rented',
+			cashRentUsdPerAcre: 242.81
+		});
+		const page = await (await metricOwner.fetch(`/farms/${metricFarm}/fields`, html)).text();
+		expect(page).toMatch(
+			/data-testid="tenure-summary"[^]*?0 ha<\/strong> owned[^]*?20 ha<\/strong> cash-rented/
+		);
+
+		const ownedWithRent = await metricOwner.postForm(`/farms/${metricFarm}/fields?/create`, {
+			name: 'Home Block',
+			area: '5',
+			productivityIndex: '1',
+			tenure: 'owned',
+			cashRent: '100',
+			priorCrop: '',
+			notes: ''
+		});
+		expect(ownedWithRent.status).toBe(400);
+		expect(await ownedWithRent.text()).toContain('An owned field pays no cash rent');
+	});
 });
 
 describe('a field a plan uses', () => {

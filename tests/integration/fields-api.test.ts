@@ -51,6 +51,8 @@ describe('an owner', () => {
 			productivityIndex: 1,
 			priorCrop: '',
 			priorCropNitrogenCreditLbPerAcre: 0,
+			tenure: 'owned',
+			cashRentUsdPerAcre: 0,
 			notes: ''
 		});
 		const [row] = await db.select().from(fields).where(eq(fields.id, field.id));
@@ -77,7 +79,9 @@ describe('an owner', () => {
 			...northForty,
 			id: field.id,
 			key: field.key,
-			priorCropNitrogenCreditLbPerAcre: 0
+			priorCropNitrogenCreditLbPerAcre: 0,
+			tenure: 'owned',
+			cashRentUsdPerAcre: 0
 		});
 		const names = listed.map((f: { name: string }) => f.name);
 		expect(names).toEqual([...names].sort((a: string, b: string) => a.localeCompare(b)));
@@ -91,6 +95,30 @@ describe('an owner', () => {
 		expect((await response.json()).field).toEqual({ ...field, acres: 38.25 });
 		const [row] = await db.select().from(fields).where(eq(fields.id, field.id));
 		expect(row).toMatchObject({ acres: 38.25, name: 'North Forty', notes: northForty.notes });
+	});
+
+	it('rents a field for cash, and takes the rent away when it is bought', async () => {
+		const field = await addField({
+			name: 'Widow Lane Eighty',
+			acres: 80,
+			tenure: 'cash-rented',
+			cashRentUsdPerAcre: 232.5
+		});
+		expect(field).toMatchObject({ tenure: 'cash-rented', cashRentUsdPerAcre: 232.5 });
+		// bought: owned land pays no rent, so both change together
+		const refused = await owner.json(`${base()}/${field.id}`, 'PATCH', { tenure: 'owned' });
+		expect(refused.status).toBe(422);
+		expect((await refused.json()).issues).toEqual([
+			{
+				path: 'cashRentUsdPerAcre',
+				message: 'An owned field pays no cash rent: set the tenure to cash-rented or the rent to 0.'
+			}
+		]);
+		const bought = await owner.json(`${base()}/${field.id}`, 'PATCH', {
+			tenure: 'owned',
+			cashRentUsdPerAcre: 0
+		});
+		expect((await bought.json()).field).toMatchObject({ tenure: 'owned', cashRentUsdPerAcre: 0 });
 	});
 
 	it('deletes a field no plan uses', async () => {
@@ -168,6 +196,8 @@ describe('bad bodies', () => {
 		for (const [body, path] of [
 			[{ acres: -1 }, 'acres'],
 			[{ productivityIndex: 9 }, 'productivityIndex'],
+			[{ tenure: 'share-rented' }, 'tenure'],
+			[{ tenure: 'cash-rented', cashRentUsdPerAcre: 2001 }, 'cashRentUsdPerAcre'],
 			[{ name: '' }, 'name'],
 			[{ key: 'taken-key' }, 'key'],
 			[{ id: crypto.randomUUID() }, '(document)'],

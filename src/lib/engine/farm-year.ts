@@ -8,7 +8,10 @@ export interface FarmYearResult extends FeedingYear {
 	year: number;
 	acres: number;
 	revenueUsd: number;
+	/** Every field's costs, cash rent included. */
 	fieldCostsUsd: number;
+	/** Cash rent on the rented fields: what a lender reads as the land cost. */
+	cashRentUsd: number;
 	hayCostUsd: number;
 	/** What the hay grazing saved would have cost: bales avoided × the year's hay price. */
 	hayUsdAvoided: number;
@@ -48,6 +51,7 @@ export function evaluateFarmYear(
 	let revenueUsd = 0;
 	let fieldCostsUsd = 0;
 	let fieldLabourUsd = 0;
+	let cashRentUsd = 0;
 	let nitrogenPurchasedLb = 0;
 	let dieselGallons = 0;
 	let machineHours = 0;
@@ -60,6 +64,7 @@ export function evaluateFarmYear(
 		revenueUsd += fy.revenueUsd;
 		fieldCostsUsd += fy.costsUsd;
 		fieldLabourUsd += fy.operationCosts.labourUsd;
+		cashRentUsd += fy.cashRentUsd;
 		nitrogenPurchasedLb += fy.nitrogen.purchasedLb;
 		dieselGallons += fy.dieselGallons;
 		machineHours += fy.machineHours;
@@ -86,6 +91,7 @@ export function evaluateFarmYear(
 		acres,
 		revenueUsd,
 		fieldCostsUsd,
+		cashRentUsd,
 		hayCostUsd,
 		hayUsdAvoided,
 		grazedAcres,

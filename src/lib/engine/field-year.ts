@@ -93,6 +93,8 @@ export interface FieldYearResult {
 		totalUsd: number;
 	};
 	operationCosts: { fuelUsd: number; repairsUsd: number; labourUsd: number; totalUsd: number };
+	/** The field's cash rent for the year, its land cost (0 on owned land). */
+	cashRentUsd: number;
 	costsUsd: number;
 	netReturnUsd: number;
 	netReturnUsdPerAcre: number;
@@ -275,7 +277,9 @@ export function evaluateFieldYear(input: FieldYearInput): FieldYearResult {
 		(practice.operatingInterestMonths / 12);
 	const directTotalUsd = purchasedInputsUsd + operatingInterestUsd;
 	const operationTotalUsd = fuelUsd + repairsUsd + labourUsd;
-	const costsUsd = directTotalUsd + operationTotalUsd;
+	// Rent is a land cost, not an operating input: it carries no operating interest here.
+	const cashRentUsd = field.cashRentUsdPerAcre * acres;
+	const costsUsd = directTotalUsd + operationTotalUsd + cashRentUsd;
 
 	// Cattle graze only when the farm has a herd; what they eat is what the forage ledger offers.
 	const grazed = herd !== null;
@@ -329,6 +333,7 @@ export function evaluateFieldYear(input: FieldYearInput): FieldYearResult {
 			totalUsd: directTotalUsd
 		},
 		operationCosts: { fuelUsd, repairsUsd, labourUsd, totalUsd: operationTotalUsd },
+		cashRentUsd,
 		costsUsd,
 		netReturnUsd: revenueUsd - costsUsd,
 		netReturnUsdPerAcre: (revenueUsd - costsUsd) / acres,

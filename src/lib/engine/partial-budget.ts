@@ -51,6 +51,7 @@ const categoryWords = {
 	diesel: 'diesel',
 	repairs: 'machinery repairs',
 	'field-labour': 'field labour',
+	'cash-rent': 'cash rent',
 	hay: 'purchased hay',
 	'chore-labour': 'chore labour',
 	'fixed-costs': 'fixed costs'
@@ -98,7 +99,8 @@ const fieldCategoryIndexes = (
 		'operating-interest',
 		'diesel',
 		'repairs',
-		'field-labour'
+		'field-labour',
+		'cash-rent'
 	] as const
 ).map(index);
 
@@ -117,7 +119,8 @@ function fieldAmounts(fy: FieldYearResult): Float64Array {
 		d.operatingInterestUsd,
 		o.fuelUsd,
 		o.repairsUsd,
-		o.labourUsd
+		o.labourUsd,
+		fy.cashRentUsd
 	];
 	const amounts = new Float64Array(categoryCount);
 	for (let k = 0; k < values.length; k++) amounts[fieldCategoryIndexes[k]] = values[k];

@@ -22,21 +22,23 @@ export const fieldBodySchema = fieldSchema
 	});
 export type FieldBody = z.output<typeof fieldBodySchema>;
 
-/** What the fields form shows, with the area in the farm's own unit (acres or hectares). */
-export function fieldFormSchema(area: Range & { unit: string }) {
+/** The ranges of the values the fields form shows in the farm's own unit (acres or hectares). */
+export interface FieldFormRanges {
+	area: Range & { unit: string };
+	cashRent: Range & { usdPer: string };
+}
+
+/** What the fields form shows, with the area and the rent per area in the farm's own unit. */
+export function fieldFormSchema(ranges: FieldFormRanges) {
 	return fieldSchema
-		.pick({
-			name: true,
-			productivityIndex: true,
-			priorCrop: true,
-			tenure: true,
-			cashRentUsdPerAcre: true,
-			notes: true
+		.pick({ name: true, productivityIndex: true, priorCrop: true, tenure: true, notes: true })
+		.extend({
+			area: amount('field area', ranges.area),
+			cashRent: amount('the cash rent', ranges.cashRent).default(0)
 		})
-		.extend({ area: amount('field area', area) })
 		.superRefine((field, ctx) => {
-			const message = cashRentMessage(field);
-			if (message) ctx.addIssue({ code: 'custom', path: ['cashRentUsdPerAcre'], message });
+			const message = cashRentMessage({ ...field, cashRentUsdPerAcre: field.cashRent });
+			if (message) ctx.addIssue({ code: 'custom', path: ['cashRent'], message });
 		});
 }
 export type FieldForm = z.output<ReturnType<typeof fieldFormSchema>>;

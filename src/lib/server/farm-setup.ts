@@ -2,11 +2,12 @@
 import { toMetric, toUs } from '$lib/engine/units';
 import { setError, type FormPathLeavesWithErrors, type SuperValidated } from 'sveltekit-superforms';
 import { cropSchema, type CropDefinition } from '$lib/schemas/crops';
-import { fieldFormSchema, type CropForm } from '$lib/schemas/farm-setup';
+import { fieldFormSchema, type CropForm, type FieldFormRanges } from '$lib/schemas/farm-setup';
 import { toFieldIssues } from '$lib/schemas/issues';
 import type { Range } from '$lib/schemas/messages';
 import { fieldSchema } from '$lib/schemas/plan-file';
 import { unitSystems, type UnitSystem } from '$lib/unit-systems';
+import { displayUnits } from './display-units';
 
 const quoted = (names: string[]) => names.map((name) => `"${name}"`).join(', ');
 
@@ -34,15 +35,48 @@ export function cropInUseMessage(name: string, practiceNames: string[]): string 
 	return `${name} is grown in ${one ? 'the practice' : 'the practices'} ${quoted(practiceNames)}: change ${one ? 'that practice' : 'those practices'} before deleting it.`;
 }
 
-/** The field form's area range in the farm's unit: the plan file's acre range, in hectares for metric. */
-export function fieldAreaRange(system: UnitSystem): Range & { unit: string } {
-	const { minValue, maxValue } = fieldSchema.shape.acres;
-	const min = minValue ?? 0;
-	const max = maxValue ?? 0;
-	if (system === 'us') return { min, max, unit: 'acres' };
-	// Rounded inwards to the hundredth shown, so an area inside the range is inside it in acres too.
-	const toHa = (acres: number) => toMetric(acres, 'area') * 100;
-	return { min: Math.ceil(toHa(min)) / 100, max: Math.floor(toHa(max)) / 100, unit: 'ha' };
+/**
+ * The field form's ranges in the farm's unit: the plan file's acre and $/acre ranges, in hectares and
+ * $/ha for metric, rounded inwards to the hundredth shown so a value inside is inside in acres too.
+ */
+export function fieldFormRanges(system: UnitSystem): FieldFormRanges {
+	const acres = fieldSchema.shape.acres;
+	const rent = fieldSchema.shape.cashRentUsdPerAcre.unwrap();
+	const [minAcres, maxAcres, maxRent] = [
+		acres.minValue ?? 0,
+		acres.maxValue ?? 0,
+		rent.maxValue ?? 0
+	];
+	if (system === 'us') {
+		return {
+			area: { min: minAcres, max: maxAcres, unit: 'acres' },
+			cashRent: { min: 0, max: maxRent, usdPer: 'acre a year' }
+		};
+	}
+	const toHa = (a: number) => toMetric(a, 'area') * 100;
+	return {
+		area: {
+			min: Math.ceil(toHa(minAcres)) / 100,
+			max: Math.floor(toHa(maxAcres)) / 100,
+			unit: 'ha'
+		},
+		cashRent: {
+			min: 0,
+			max: Math.floor(displayUnits('metric').pricePer(maxRent, 'area')! * 100) / 100,
+			usdPer: 'hectare a year'
+		}
+	};
+}
+
+/** A field's cash rent for the form: $/ac, or $/ha for metric, to the cent. */
+export function shownCashRent(usdPerAcre: number, system: UnitSystem): number {
+	return Math.round(displayUnits(system).pricePer(usdPerAcre, 'area')! * 100) / 100;
+}
+
+/** The rent typed in the form ($/ac, or $/ha for metric) in $/ac to the cent the table keeps. */
+export function cashRentFromShown(shown: number, system: UnitSystem): number {
+	const usdPerAcre = system === 'us' ? shown : shown * toMetric(1, 'area');
+	return Math.round(usdPerAcre * 100) / 100;
 }
 
 /** A field's area for the form: acres, or hectares for metric, to the hundredth. */
@@ -59,7 +93,7 @@ export function acresFromShownArea(area: number, system: UnitSystem): number {
 
 /** The fields form's schema for each unit system, built once (the form library caches per schema). */
 export const fieldFormSchemas = new Map(
-	unitSystems.map((system) => [system, fieldFormSchema(fieldAreaRange(system))])
+	unitSystems.map((system) => [system, fieldFormSchema(fieldFormRanges(system))])
 );
 
 /**

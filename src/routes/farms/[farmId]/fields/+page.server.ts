@@ -6,10 +6,16 @@ import { requireFarmAccess, roleAllows } from '$lib/server/auth/access';
 import { db } from '$lib/server/db';
 import { chooseFieldKey, insertField, listFields } from '$lib/server/db/fields';
 import { displayUnits } from '$lib/server/display-units';
-import { acresFromShownArea, fieldAreaRange, fieldFormSchemas } from '$lib/server/farm-setup';
+import {
+	acresFromShownArea,
+	cashRentFromShown,
+	fieldFormRanges,
+	fieldFormSchemas
+} from '$lib/server/farm-setup';
+import { tenureLabels } from '$lib/farm-lists';
 import type { Actions, PageServerLoad } from './$types';
 
-const sortColumns = ['name', 'area', 'productivityIndex', 'priorCrop'] as const;
+const sortColumns = ['name', 'area', 'productivityIndex', 'priorCrop', 'tenure'] as const;
 const viewSchema = z.object({
 	sort: z.enum(sortColumns).catch('name'),
 	dir: z.enum(['asc', 'desc']).catch('asc')
@@ -31,20 +37,29 @@ export const load = (async (event) => {
 		area: show.amount(field.acres, 'area')!,
 		productivityIndex: field.productivityIndex,
 		priorCrop: field.priorCrop,
+		tenure: tenureLabels[field.tenure],
+		cashRent:
+			field.tenure === 'cash-rented' ? show.pricePer(field.cashRentUsdPerAcre, 'area')! : null,
 		notes: field.notes
 	}));
 	const totalAcres = rows.reduce((sum, field) => sum + field.acres, 0);
+	const rented = rows.filter((field) => field.tenure === 'cash-rented');
+	const rentedAcres = rented.reduce((sum, field) => sum + field.acres, 0);
+	const rentUsd = rented.reduce((sum, field) => sum + field.acres * field.cashRentUsdPerAcre, 0);
 	const weightedIndex = rows.reduce((sum, f) => sum + f.acres * f.productivityIndex, 0);
 	return {
 		farm: { id: farm.id, name: farm.name },
 		canEdit,
 		areaUnit: show.unit('area'),
-		areaRange: fieldAreaRange(farm.unitSystem),
+		ranges: fieldFormRanges(farm.unitSystem),
 		view,
 		fields: sortFields(fields, view),
 		totals: {
 			count: rows.length,
 			area: show.amount(totalAcres, 'area')!,
+			ownedArea: show.amount(totalAcres - rentedAcres, 'area')!,
+			rentedArea: show.amount(rentedAcres, 'area')!,
+			rentUsdPerYear: rentUsd,
 			// Weighted by area, so a big field counts for more than a small one.
 			productivityIndex: totalAcres > 0 ? weightedIndex / totalAcres : null
 		},
@@ -57,12 +72,13 @@ export const actions = {
 		const { user, farm } = await requireFarmAccess(event, event.params.farmId, 'farm:edit');
 		const form = await superValidate(event.request, zod4(fieldFormSchemas.get(farm.unitSystem)!));
 		if (!form.valid) return fail(400, { form });
-		const { area, ...values } = form.data;
+		const { area, cashRent, ...values } = form.data;
 		const key = (await chooseFieldKey(db, farm.id, { name: values.name }))!;
 		const acres = acresFromShownArea(area, farm.unitSystem);
 		await insertField(db, farm.id, user.id, {
 			...values,
 			acres,
+			cashRentUsdPerAcre: cashRentFromShown(cashRent, farm.unitSystem),
 			key,
 			priorCropNitrogenCreditLbPerAcre: 0
 		});
@@ -70,7 +86,13 @@ export const actions = {
 	}
 } satisfies Actions;
 
-type ShownField = { name: string; area: number; productivityIndex: number; priorCrop: string };
+type ShownField = {
+	name: string;
+	area: number;
+	productivityIndex: number;
+	priorCrop: string;
+	tenure: string;
+};
 
 function sortFields<T extends ShownField>(fields: T[], view: z.output<typeof viewSchema>): T[] {
 	const sign = view.dir === 'asc' ? 1 : -1;

@@ -12,10 +12,12 @@ import {
 import { displayUnits } from '$lib/server/display-units';
 import {
 	acresFromShownArea,
-	fieldAreaRange,
+	cashRentFromShown,
+	fieldFormRanges,
 	fieldFormSchemas,
 	fieldInUseMessage,
-	shownArea
+	shownArea,
+	shownCashRent
 } from '$lib/server/farm-setup';
 import type { Actions, PageServerLoad } from './$types';
 
@@ -32,6 +34,8 @@ export const load = (async (event) => {
 				area: shownArea(field.acres, farm.unitSystem),
 				productivityIndex: field.productivityIndex,
 				priorCrop: field.priorCrop,
+				tenure: field.tenure,
+				cashRent: shownCashRent(field.cashRentUsdPerAcre, farm.unitSystem),
 				notes: field.notes
 			},
 			zod4(fieldFormSchemas.get(farm.unitSystem)!),
@@ -43,7 +47,7 @@ export const load = (async (event) => {
 		farm: { id: farm.id, name: farm.name },
 		field: { id: field.id, name: field.name },
 		areaUnit: show.unit('area'),
-		areaRange: fieldAreaRange(farm.unitSystem),
+		ranges: fieldFormRanges(farm.unitSystem),
 		confirmDelete,
 		inUse: plansUsing.length ? fieldInUseMessage(field.name, plansUsing) : null,
 		form
@@ -56,13 +60,17 @@ export const actions = {
 		const field = await fieldOr404(farm.id, event.params.fieldId);
 		const form = await superValidate(event.request, zod4(fieldFormSchemas.get(farm.unitSystem)!));
 		if (!form.valid) return fail(400, { form });
-		const { area, ...values } = form.data;
-		// An area left as shown keeps its stored acres (hectares to the hundredth do not round-trip).
+		const { area, cashRent, ...values } = form.data;
+		// Values left as shown keep their stored figures (hectares to the hundredth do not round-trip).
 		const unchanged = area === shownArea(field.acres, farm.unitSystem);
 		const acres = unchanged ? field.acres : acresFromShownArea(area, farm.unitSystem);
+		const rentUnchanged = cashRent === shownCashRent(field.cashRentUsdPerAcre, farm.unitSystem);
 		await updateField(db, farm.id, user.id, field.id, {
 			...values,
 			acres,
+			cashRentUsdPerAcre: rentUnchanged
+				? field.cashRentUsdPerAcre
+				: cashRentFromShown(cashRent, farm.unitSystem),
 			key: field.key,
 			priorCropNitrogenCreditLbPerAcre: field.priorCropNitrogenCreditLbPerAcre
 		});

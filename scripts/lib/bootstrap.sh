@@ -60,6 +60,9 @@ ENV
 	set -a
 	# shellcheck disable=SC1091
 	. ./.env
+	# Request bodies up to 2 MB (adapter-node's default is 512 kB): room for a 1 MB CSV upload, whose
+	# own limit the app states, with the form around it. An .env value wins.
+	BODY_SIZE_LIMIT=${BODY_SIZE_LIMIT:-2M}
 	set +a
 }
 

@@ -4,9 +4,9 @@ import { beforeAll, describe, expect, it } from 'vitest';
 import { type Client, signedIn } from '../support/http';
 import { demoUsers } from '../support/server';
 
-// The test server runs with adapter-node's default BODY_SIZE_LIMIT of 512K (512 × 1024 bytes).
-const LIMIT_BYTES = 512 * 1024;
-const tooLargeMessage = 'The request body is larger than the 512 kB limit.';
+// The test server runs with the BODY_SIZE_LIMIT of 2M that scripts/lib/bootstrap.sh sets (2 × 1024² bytes).
+const LIMIT_BYTES = 2 * 1024 * 1024;
+const tooLargeMessage = 'The request body is larger than the 2,048 kB limit.';
 
 /** A real plan document padded past the limit with a long note, so only its size is wrong. */
 function oversizedPlan(): string {

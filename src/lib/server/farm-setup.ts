@@ -4,7 +4,6 @@ import { setError, type FormPathLeavesWithErrors, type SuperValidated } from 'sv
 import { cropSchema, type CropDefinition } from '$lib/schemas/crops';
 import { fieldFormSchema, type CropForm, type FieldFormRanges } from '$lib/schemas/farm-setup';
 import { toFieldIssues } from '$lib/schemas/issues';
-import type { Range } from '$lib/schemas/messages';
 import { fieldSchema } from '$lib/schemas/plan-file';
 import { unitSystems, type UnitSystem } from '$lib/unit-systems';
 import { displayUnits } from './display-units';

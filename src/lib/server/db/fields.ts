@@ -2,10 +2,11 @@ import { and, asc, eq, ne } from 'drizzle-orm';
 import { z } from 'zod';
 import { keyFromName, type FieldBody } from '$lib/schemas/farm-setup';
 import type { PlanDocument } from '$lib/schemas/plan-file';
+import { duplicateNames } from '../csv-upload';
 import { insertAuditEntry } from './audit';
 import type { Db, Tx } from './client';
 import { findIdsByKey, type IdsByKey } from './keys';
-import { fields, planFieldAssignments, plans, planVersions } from './schema';
+import { farms, fields, planFieldAssignments, plans, planVersions } from './schema';
 
 /** Adds the fields the farm does not have yet (by plan-file id); the row ids of all of them. */
 export async function insertFields(
@@ -120,6 +121,47 @@ export async function insertField(
 			detail: { fieldId: row.id, name: row.name }
 		});
 		return row;
+	});
+}
+
+/**
+ * Adds every field of a CSV upload, or none: in one transaction that locks the farm's fields against a
+ * concurrent import, refusing (nothing added) when a name repeats in the file or matches a field the
+ * farm has. Keys are made from the names.
+ */
+export async function importFields(
+	db: Db | Tx,
+	farmId: string,
+	userId: string,
+	input: Omit<FieldBody, 'key'>[]
+): Promise<{ imported: number } | { duplicates: string[] }> {
+	return db.transaction(async (tx) => {
+		const existing = await tx
+			.select({ key: fields.key, name: fields.name })
+			.from(farms)
+			.leftJoin(fields, eq(fields.farmId, farms.id))
+			.where(eq(farms.id, farmId))
+			.for('update', { of: farms });
+		const names = new Set(existing.flatMap((row) => (row.name ? [row.name.toLowerCase()] : [])));
+		const duplicates = duplicateNames(
+			input.map((field) => field.name),
+			names
+		);
+		if (duplicates.length) return { duplicates };
+		const taken = new Set(existing.flatMap((row) => (row.key ? [row.key] : [])));
+		const rows = input.map((field) => {
+			const key = keyFromName(field.name, taken, 'field');
+			taken.add(key);
+			return { ...field, key, farmId };
+		});
+		if (rows.length) await tx.insert(fields).values(rows);
+		await insertAuditEntry(tx, {
+			farmId,
+			userId,
+			action: 'fields.imported',
+			detail: { count: rows.length, names: rows.map((row) => row.name) }
+		});
+		return { imported: rows.length };
 	});
 }
 

@@ -11,6 +11,7 @@ export interface AuditDetails {
 	'field.created': { fieldId: string; name: string };
 	'field.updated': { fieldId: string; name: string };
 	'field.deleted': { fieldId: string; name: string };
+	'fields.imported': { count: number; names: string[] };
 	'crop.created': { crop: string; name: string };
 	'crop.updated': { crop: string; name: string };
 	'crop.deleted': { crop: string; name: string };

@@ -1,0 +1,143 @@
+// Reading CSV uploads as spreadsheets write them, and naming each problem by row and column.
+import { describe, expect, it } from 'vitest';
+import { fieldsCsv } from '../../src/lib/server/csv-kinds';
+import {
+	csvTemplate,
+	duplicateNames,
+	maxCsvBytes,
+	readCsv,
+	readCsvFile
+} from '../../src/lib/server/csv-upload';
+
+const header = 'name,acres,productivityIndex,tenure,cashRentUsdPerAcre';
+
+describe('reading a fields CSV', () => {
+	it('reads rows into fields, the schema’s defaults filled in', () => {
+		const read = readCsv(
+			`${header}\nNorth Forty,40.5,1.05,owned,\nRented 80,80,,cash-rented,245\n`,
+			fieldsCsv
+		);
+		expect(read.ok).toBe(true);
+		if (!read.ok) return;
+		expect(read.rows).toEqual([
+			expect.objectContaining({
+				name: 'North Forty',
+				acres: 40.5,
+				productivityIndex: 1.05,
+				cashRentUsdPerAcre: 0
+			}),
+			expect.objectContaining({
+				name: 'Rented 80',
+				tenure: 'cash-rented',
+				cashRentUsdPerAcre: 245,
+				productivityIndex: 1
+			})
+		]);
+	});
+
+	it('takes a byte-order mark, Windows line ends and quoted thousands as a spreadsheet saves them', () => {
+		const text = `\uFEFF${header}\r\n"Home Section","1,240.25",1,owned,0\r\n`;
+		const read = readCsv(text, fieldsCsv);
+		expect(read.ok && read.rows[0]).toMatchObject({ name: 'Home Section', acres: 1240.25 });
+	});
+
+	it('takes `;` separators with decimal commas, as European spreadsheets save CSV', () => {
+		const text = `${header.replaceAll(',', ';')}\r\nWest Hill;40,5;0,95;cash-rented;1.210,50\r\nEast;12.5;1;owned;0\r\n`;
+		const read = readCsv(text, fieldsCsv);
+		expect(read.ok).toBe(true);
+		if (!read.ok) return;
+		expect(read.rows.map((r) => [r.acres, r.productivityIndex, r.cashRentUsdPerAcre])).toEqual([
+			[40.5, 0.95, 1210.5],
+			[12.5, 1, 0]
+		]);
+	});
+
+	it('names every bad row by its spreadsheet row (the header is row 1) and column', () => {
+		const text = `${header}\nGood,10,1,owned,0\n,ten,1,owned,0\nRented,5,1,owned,150\n`;
+		const read = readCsv(text, fieldsCsv);
+		expect(read.ok).toBe(false);
+		if (read.ok) return;
+		expect(read.problems).toEqual([
+			{ row: 3, column: 'name', message: 'Enter the field name.' },
+			{ row: 3, column: 'acres', message: 'Enter field area as a number.' },
+			{
+				row: 4,
+				column: 'cashRentUsdPerAcre',
+				message: 'An owned field pays no cash rent: set the tenure to cash-rented or the rent to 0.'
+			}
+		]);
+	});
+
+	it('refuses a file whose columns are not the template’s, naming what is missing and unknown', () => {
+		const read = readCsv('field,size\nNorth,40\n', fieldsCsv);
+		expect(read.ok).toBe(false);
+		if (read.ok) return;
+		expect(read.problems).toEqual([
+			{
+				row: 1,
+				column: null,
+				message:
+					'The columns do not match the template (missing "name", "acres"; not known: "field", "size"). Download the template and keep its header row.'
+			}
+		]);
+	});
+
+	it('refuses a row with too few cells and a file with no rows', () => {
+		const short = readCsv(`${header}\nNorth,40\n`, fieldsCsv);
+		expect(!short.ok && short.problems[0]).toMatchObject({ row: 2 });
+		const empty = readCsv(`${header}\n`, fieldsCsv);
+		expect(!empty.ok && empty.problems[0].message).toBe('The file has a header row but no fields.');
+	});
+
+	it('writes a template that reads back as one valid field', () => {
+		const read = readCsv(csvTemplate(fieldsCsv), fieldsCsv);
+		expect(read.ok && read.rows).toHaveLength(1);
+	});
+});
+
+describe('the uploaded file', () => {
+	const file = (content: BlobPart, name: string, type = 'text/csv') =>
+		new File([content], name, { type });
+
+	it('refuses no file, a file over 1 MB and a file that is not CSV, each with a message', async () => {
+		expect(await readCsvFile(null)).toMatchObject({
+			ok: false,
+			problem: { message: 'Choose a CSV file to upload.' }
+		});
+		const big = await readCsvFile(file('x'.repeat(maxCsvBytes + 1), 'big.csv'));
+		expect(big).toMatchObject({
+			ok: false,
+			problem: { message: expect.stringContaining('at most 1 MB') }
+		});
+		const sheet = await readCsvFile(
+			file(
+				new Uint8Array([0x50, 0x4b, 3, 4, 0, 0]),
+				'fields.xlsx',
+				'application/vnd.openxmlformats-officedocument.spreadsheetml.sheet'
+			)
+		);
+		expect(sheet).toMatchObject({
+			ok: false,
+			problem: { message: expect.stringContaining('not a CSV file') }
+		});
+	});
+
+	it('reads UTF-8, and Windows-1252 from older spreadsheet programs', async () => {
+		expect(await readCsvFile(file('name\nCafé', 'a.csv'))).toEqual({
+			ok: true,
+			text: 'name\nCafé'
+		});
+		// 0xE9 is é in Windows-1252 and not valid UTF-8 on its own
+		const latin = await readCsvFile(file(new Uint8Array([0x43, 0x61, 0x66, 0xe9]), 'b.csv'));
+		expect(latin).toEqual({ ok: true, text: 'Café' });
+	});
+});
+
+describe('duplicate names', () => {
+	it('lists names repeated in the file or already on the farm, ignoring case and spaces', () => {
+		expect(duplicateNames(['North', 'south ', 'NORTH', 'East'], new Set(['south']))).toEqual([
+			'south ',
+			'NORTH'
+		]);
+	});
+});

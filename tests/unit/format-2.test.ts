@@ -296,8 +296,17 @@ describe('format 1 is still read', () => {
 			['tests/unit/plans/format-1-reference.json', 'scenarios/reference.json'],
 			['tests/unit/plans/format-1-wide-row.json', 'scenarios/wide-row-interseeded.json']
 		]) {
-			const first = parsePlanDocument(JSON.parse(readFileSync(v1, 'utf8')));
-			const second = parsePlanDocument(JSON.parse(readFileSync(v2, 'utf8')));
+			const old = JSON.parse(readFileSync(v1, 'utf8'));
+			const current = JSON.parse(readFileSync(v2, 'utf8'));
+			// The demo scenarios have since rented some fields (and so carry less fixed cost): taken out
+			// here, they are the files the format-1 copies were made from.
+			current.farm.fixedCostsUsdPerYear = old.farm.fixedCostsUsdPerYear;
+			for (const field of current.fields) {
+				delete field.tenure;
+				delete field.cashRentUsdPerAcre;
+			}
+			const first = parsePlanDocument(old);
+			const second = parsePlanDocument(current);
 			expect(first.ok && first.readFormatVersion).toBe(1);
 			expect(second.ok && second.readFormatVersion).toBe(2);
 			expect(first.ok && first.plan).toEqual(second.ok && second.plan);

@@ -104,6 +104,7 @@ describe('an owner', () => {
 		await page.locator('a[data-sort="area"]').click();
 		await page.waitForURL(/sort=area&dir=asc/);
 		const names = () => page.locator('tbody tr td:first-child').allTextContents();
+		// before the CSV upload adds its two fields
 		await expect(names()).resolves.toEqual([
 			'Creek Bottom',
 			'Schoolhouse Forty',
@@ -116,6 +117,47 @@ describe('an owner', () => {
 			'Schoolhouse Forty',
 			'Creek Bottom'
 		]);
+		await page.close();
+	});
+
+	it('uploads fields from a CSV: a bad row imports nothing and is shown; fixed, all rows import', async () => {
+		const page = await context.newPage();
+		await page.goto(`${farmPath}/fields`);
+		await page.getByRole('link', { name: 'Upload fields from a CSV file' }).click();
+		await page.waitForURL(/\/upload\/fields$/);
+		const header = 'name,acres,productivityIndex,priorCrop,tenure,cashRentUsdPerAcre,notes';
+		const rows = (hillAcres: string) =>
+			`\uFEFF${header}\r\nRented Eighty,80,1,corn,cash-rented,240,\r\nHill Ten,${hillAcres},0.9,,owned,0,Steep\r\n`;
+		const choose = (content: string) =>
+			page.getByLabel('CSV file').setInputFiles({
+				name: 'fields.csv',
+				mimeType: 'text/csv',
+				buffer: Buffer.from(content)
+			});
+		await choose(rows('-10'));
+		await page.getByRole('button', { name: 'Check the file' }).click();
+		const problem = page.locator('tr[data-problem-row="3"]');
+		await problem.waitFor();
+		await expect(problem.textContent()).resolves.toContain(
+			'Field area must be at least 0.01 acres.'
+		);
+		await expect(page.getByRole('button', { name: /^Import/ }).count()).resolves.toBe(0);
+		for (const [size, viewport] of Object.entries(viewports)) {
+			await page.setViewportSize(viewport);
+			await screenshot(page, `fields-upload-problems-${size}`);
+		}
+
+		await choose(rows('10'));
+		await page.getByRole('button', { name: 'Check the file' }).click();
+		await page.getByRole('button', { name: 'Import 2 fields' }).click();
+		await page.waitForURL(/\/fields\?imported=2$/);
+		await expect(page.getByRole('status').textContent()).resolves.toContain('2 fields imported.');
+		await expect(page.getByTestId('field-totals').textContent()).resolves.toMatch(
+			/5 fields\s*230\.75/
+		);
+		await expect(page.getByTestId('tenure-summary').textContent()).resolves.toMatch(
+			/151 ac\s*owned · 80 ac\s*cash-rented, \$19,200 rent a year/
+		);
 		await page.close();
 	});
 

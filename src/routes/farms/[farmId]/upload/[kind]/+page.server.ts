@@ -28,7 +28,8 @@ export const actions = {
 		const upload = uploadOr404(event.params.kind);
 		const file = await readCsvFile((await event.request.formData()).get('file'));
 		if (!file.ok) return fail(400, { problems: [file.problem] });
-		return previewOf(upload, file.text);
+		const preview = previewOf(upload, file.text);
+		return preview.problems.length ? fail(400, preview) : preview;
 	},
 	import: async (event) => {
 		const { user, farm } = await requireFarmAccess(event, event.params.farmId, 'farm:edit');

@@ -55,9 +55,11 @@ function required(schema: z.ZodNumber) {
 	return schema.nullable().refine((value) => value !== null, { error: message });
 }
 
+export type PriceSetForm = Record<string, string | number | null | undefined>;
+
 /** The flat form (a plain POST carries no nested objects): one value for each input. */
 export function priceSetFormSchema(layout: PriceSetFormLayout) {
-	const values: Record<string, z.ZodType> = {
+	const values: Record<string, z.ZodType<PriceSetForm[string]>> = {
 		year: required(shape.year),
 		nitrogenUsdPerLb: required(shape.nitrogenUsdPerLb),
 		dieselUsdPerGallon: required(shape.dieselUsdPerGallon),
@@ -101,7 +103,6 @@ export function priceSetFormSchema(layout: PriceSetFormLayout) {
 		}
 	});
 }
-export type PriceSetForm = Record<string, string | number | null | undefined>;
 
 /** The form's values for a stored set (or a new one, blank); seed rows first, then blank ones. */
 export function formValuesOf(

@@ -111,8 +111,8 @@ describe('the prices pages without JavaScript', () => {
 		const set = await setRow(farmId, 2027);
 		const edit = await owner.fetch(`/farms/${farmId}/prices/${set.id}`, html);
 		const editHtml = await edit.text();
-		expect(editHtml).toContain('Corn ($ per bu)');
-		expect(editHtml).toContain('Oat–pea forage ($ per ton)');
+		expect(editHtml).toContain('Corn, $ per bu');
+		expect(editHtml).toContain('Oat–pea forage, $ per ton');
 		expect(editHtml).toContain('value="cereal-rye"');
 		// The edit page shows the saved seed row and two blank ones.
 		const seedRows = formFields({

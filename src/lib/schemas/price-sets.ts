@@ -91,13 +91,13 @@ export function priceSetFormSchema(layout: PriceSetFormLayout) {
 				if (priced) ctx.addIssue({ code: 'custom', path, message: 'Enter the seed id.' });
 				continue;
 			}
+			// A seed row without a price is left out: the form lists every seed the practices sow.
+			if (!priced) continue;
 			const checked = seedIdSchema.safeParse(seedId);
 			if (!checked.success) {
 				ctx.addIssue({ code: 'custom', path, message: checked.error.issues[0].message });
 			} else if (seen.has(seedId)) {
 				ctx.addIssue({ code: 'custom', path, message: `Seed "${seedId}" is listed twice.` });
-			} else if (!priced) {
-				ctx.addIssue({ code: 'custom', path, message: noSeedPrice(seedId) });
 			}
 			seen.add(seedId);
 		}
@@ -156,11 +156,11 @@ export function priceSetOfForm(form: PriceSetForm, layout: PriceSetFormLayout) {
 	const seedPrices = new Map<string, { usdPerThousandSeeds: unknown; usdPerLb: unknown }>();
 	for (let row = 0; row < layout.seedRows; row++) {
 		const seedId = form[priceInput.seedId(row)];
+		const usdPerThousandSeeds = form[priceInput.seedPerThousand(row)];
+		const usdPerLb = form[priceInput.seedPerLb(row)];
 		if (typeof seedId !== 'string' || !seedId) continue;
-		seedPrices.set(seedId, {
-			usdPerThousandSeeds: form[priceInput.seedPerThousand(row)],
-			usdPerLb: form[priceInput.seedPerLb(row)]
-		});
+		if (usdPerThousandSeeds === undefined && usdPerLb === undefined) continue;
+		seedPrices.set(seedId, { usdPerThousandSeeds, usdPerLb });
 		inputOf.set(`seedPrices.${seedId}`, priceInput.seedId(row));
 		inputOf.set(`seedPrices.${seedId}.usdPerThousandSeeds`, priceInput.seedPerThousand(row));
 		inputOf.set(`seedPrices.${seedId}.usdPerLb`, priceInput.seedPerLb(row));

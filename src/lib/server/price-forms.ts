@@ -87,10 +87,11 @@ export function priceSetFromForm(
 }
 
 /** What the form component needs of the parts (no more than the page shows). */
-export function formPartsForPage({ crops, operations, layout }: PriceFormParts) {
+export function formPartsForPage({ crops, operations, seedIds, layout }: PriceFormParts) {
 	return {
 		crops: crops.map(({ id, name, soldBy }) => ({ id, name, soldBy })),
 		operations,
+		seedIds,
 		layout
 	};
 }

@@ -71,11 +71,13 @@ export const load = (async (event) => {
 						{ label: 'Labour', unit: 'hour', value: set.labourUsdPerHour },
 						{ label: 'Hay', unit: 'bale', value: set.hayUsdPerBale }
 					],
-					seeds: Object.entries(set.seedPrices).map(([seedId, price]) => ({
-						seedId,
-						usdPerThousandSeeds: price.usdPerThousandSeeds ?? null,
-						perMass: price.usdPerLb === undefined ? null : show.pricePer(price.usdPerLb, 'mass')
-					})),
+					seeds: Object.entries(set.seedPrices)
+						.sort(([a], [b]) => a.localeCompare(b))
+						.map(([seedId, price]) => ({
+							seedId,
+							usdPerThousandSeeds: price.usdPerThousandSeeds ?? null,
+							perMass: price.usdPerLb === undefined ? null : show.pricePer(price.usdPerLb, 'mass')
+						})),
 					massUnit: show.unit('mass'),
 					areaUnit: show.unit('area'),
 					rates: parts.operations.flatMap((op) => {

@@ -15,6 +15,9 @@ export interface AuditDetails {
 	'crop.created': { crop: string; name: string };
 	'crop.updated': { crop: string; name: string };
 	'crop.deleted': { crop: string; name: string };
+	'price-set.created': { priceSetId: string; year: number };
+	'price-set.updated': { priceSetId: string; year: number };
+	'price-set.deleted': { priceSetId: string; year: number };
 }
 export type AuditAction = keyof AuditDetails;
 

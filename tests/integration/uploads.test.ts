@@ -71,12 +71,18 @@ describe('uploading fields', () => {
 		expect(audit.map((a) => a.detail)).toEqual([{ count: 2, names: ['Creek Eighty', 'Hill Ten'] }]);
 	});
 
-	it('again: the names it would repeat are listed and nothing is imported', async () => {
+	it('again: each name it would repeat is named by its row, and nothing is imported', async () => {
 		const before = await farmSnapshot(db, farmId);
-		const again = `${header}\nNew Quarter,160,1,,owned,0,\nCREEK EIGHTY,80,1,,owned,0,\n`;
+		const again = `${header}\nNew Quarter,160,1,,owned,0,\nCREEK EIGHTY,80,1,,owned,0,\nnew quarter,5,1,,owned,0,\n`;
+		const preview = await upload(owner, again);
+		expect(preview.status).toBe(400);
+		const html = await preview.text();
+		expect(html).toMatch(
+			/data-problem-row="3"[^]*?The farm already has a field named "CREEK EIGHTY"/
+		);
+		expect(html).toMatch(/data-problem-row="4"[^]*?"new quarter" is also the name in row 2/);
 		const response = await owner.postForm(`${page()}?/import`, { csv: again });
-		expect(response.status).toBe(409);
-		expect(await response.text()).toContain('CREEK EIGHTY');
+		expect(response.status).toBe(400);
 		expect(await farmSnapshot(db, farmId)).toEqual(before);
 	});
 
@@ -114,6 +120,41 @@ describe('uploading fields', () => {
 		const [head, example] = (await response.text()).split('\r\n');
 		expect(head.split(',')).toEqual(expect.arrayContaining(header.split(',')));
 		expect(example).toContain('North Forty');
+	});
+});
+
+describe('uploading prices', () => {
+	const pricesHeader =
+		'year,nitrogenUsdPerLb,dieselUsdPerGallon,labourUsdPerHour,hayUsdPerBale,crop:corn,crop:soybean';
+	const uploadPrices = (content: string) => {
+		const body = new FormData();
+		body.append('file', new File([content], 'prices.csv', { type: 'text/csv' }));
+		return owner.fetch(`/farms/${farmId}/upload/price-sets?/preview`, {
+			method: 'POST',
+			body,
+			headers: { Accept: 'text/html' }
+		});
+	};
+
+	it('imports a year a row; a crop the farm lacks or a year it has is named by row and column', async () => {
+		const good = `${pricesHeader}\n2027,0.55,3.6,22,60,4.4,10.6\n2028,0.57,3.7,23,62,4.5,10.8\n`;
+		const csv = readyCsv(await (await uploadPrices(good)).text());
+		expect(csv).toBe(good);
+		const response = await owner.postForm(`/farms/${farmId}/upload/price-sets?/import`, {
+			csv: csv!
+		});
+		expect(response.headers.get('location')).toBe(`/farms/${farmId}/prices?imported=2`);
+		const listed = await (await owner.fetch(`/api/v1/farms/${farmId}/price-sets`)).json();
+		expect(listed.priceSets.map((set: { year: number }) => set.year)).toEqual([2027, 2028]);
+
+		const before = await farmSnapshot(db, farmId);
+		const bad = `${pricesHeader},crop:quinoa\n2028,0.5,3,20,50,4,10,7\n2029,0.5,3,20,50,4,10,7\n`;
+		const refused = await uploadPrices(bad);
+		expect(refused.status).toBe(400);
+		const html = await refused.text();
+		expect(html).toMatch(/data-problem-row="2"[^]*?year[^]*?already has prices for 2028/);
+		expect(html).toMatch(/data-problem-row="3"[^]*?crop:quinoa[^]*?no crop "quinoa"/);
+		expect(await farmSnapshot(db, farmId)).toEqual(before);
 	});
 });
 

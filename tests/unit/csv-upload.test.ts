@@ -1,6 +1,6 @@
 // Reading CSV uploads as spreadsheets write them, and naming each problem by row and column.
 import { describe, expect, it } from 'vitest';
-import { fieldsCsv } from '../../src/lib/server/csv-kinds';
+import { fieldsCsv, priceSetsCsv } from '../../src/lib/server/csv-kinds';
 import {
 	csvTemplate,
 	duplicateNames,
@@ -138,6 +138,35 @@ describe('duplicate names', () => {
 		expect(duplicateNames(['North', 'south ', 'NORTH', 'East'], new Set(['south']))).toEqual([
 			'south ',
 			'NORTH'
+		]);
+	});
+});
+
+describe('reading a price-set CSV', () => {
+	const head =
+		'year;nitrogenUsdPerLb;dieselUsdPerGallon;labourUsdPerHour;hayUsdPerBale;crop:corn;seedPerThousand:corn-seed;seedPerLb:cereal-rye;customRate:combine';
+
+	it('reads one year a row, with prices by crop, seed and operation in prefixed columns', () => {
+		const read = readCsv(`${head}\r\n2027;0,55;3,60;22;60;4,40;3,9;0,32;38\r\n`, priceSetsCsv);
+		expect(read.ok && read.rows).toEqual([
+			{
+				year: 2027,
+				nitrogenUsdPerLb: 0.55,
+				dieselUsdPerGallon: 3.6,
+				labourUsdPerHour: 22,
+				hayUsdPerBale: 60,
+				cropPricesUsdPerUnit: { corn: 4.4 },
+				seedPrices: { 'corn-seed': { usdPerThousandSeeds: 3.9 }, 'cereal-rye': { usdPerLb: 0.32 } },
+				customRatesUsdPerAcre: { combine: 38 }
+			}
+		]);
+	});
+
+	it('names a bad price by its own column', () => {
+		const read = readCsv(`${head}\n2027;0,55;3,60;22;60;-4;3,9;abc;38\n`, priceSetsCsv);
+		expect(!read.ok && read.problems.map((p) => [p.row, p.column])).toEqual([
+			[2, 'crop:corn'],
+			[2, 'seedPerLb:cereal-rye']
 		]);
 	});
 });

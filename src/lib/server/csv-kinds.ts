@@ -1,6 +1,7 @@
 // What each CSV upload holds: its columns (named as the API's JSON names, US customary units like the
 // plan file) and how a row becomes the aggregate's API body.
 import { fieldBodySchema, type FieldBody } from '$lib/schemas/farm-setup';
+import { priceSetBodySchema, type PriceSet } from '$lib/schemas/price-sets';
 import type { CsvColumn, CsvKind } from './csv-upload';
 
 const column = (name: string, example: string, numeric: boolean, required = false): CsvColumn => ({
@@ -36,3 +37,64 @@ export const fieldsCsv: CsvKind<FieldBody> = {
 	schema: fieldBodySchema,
 	columnOf: topLevelColumn(new Set(fieldColumns.map((c) => c.name)))
 };
+
+// A price set's maps by id, each in columns of its own prefix: `crop:corn`, `seedPerLb:cereal-rye`.
+const pricePrefixes = {
+	crop: 'crop:',
+	seedPerThousand: 'seedPerThousand:',
+	seedPerLb: 'seedPerLb:',
+	customRate: 'customRate:'
+} as const;
+
+const priceColumns = [
+	column('year', '2027', true, true),
+	column('nitrogenUsdPerLb', '0.55', true, true),
+	column('dieselUsdPerGallon', '3.60', true, true),
+	column('labourUsdPerHour', '22', true, true),
+	column('hayUsdPerBale', '60', true, true)
+];
+
+export const priceSetsCsv: CsvKind<PriceSet> = {
+	noun: 'price sets',
+	columns: priceColumns,
+	numericPrefixes: Object.values(pricePrefixes),
+	toInput(cells) {
+		const set: Record<string, unknown> = {};
+		const crops: Record<string, unknown> = {};
+		const seeds: Record<string, Record<string, unknown>> = {};
+		const rates: Record<string, unknown> = {};
+		const seed = (id: string) => (seeds[id] ??= {});
+		for (const [name, value] of cells) {
+			const [prefix, id] = splitPrefix(name);
+			if (prefix === pricePrefixes.crop) crops[id] = value;
+			else if (prefix === pricePrefixes.seedPerThousand) seed(id).usdPerThousandSeeds = value;
+			else if (prefix === pricePrefixes.seedPerLb) seed(id).usdPerLb = value;
+			else if (prefix === pricePrefixes.customRate) rates[id] = value;
+			else set[name] = value;
+		}
+		return {
+			...set,
+			cropPricesUsdPerUnit: crops,
+			seedPrices: seeds,
+			customRatesUsdPerAcre: rates
+		};
+	},
+	schema: priceSetBodySchema,
+	columnOf: priceColumnOf
+};
+
+/** The column a price-set path is read from: `cropPricesUsdPerUnit.corn` → `crop:corn`. */
+export function priceColumnOf(path: string): string | null {
+	const [top, id, leaf] = path.split('.');
+	if (top === 'cropPricesUsdPerUnit' && id) return pricePrefixes.crop + id;
+	if (top === 'customRatesUsdPerAcre' && id) return pricePrefixes.customRate + id;
+	if (top === 'seedPrices' && id) {
+		return (leaf === 'usdPerLb' ? pricePrefixes.seedPerLb : pricePrefixes.seedPerThousand) + id;
+	}
+	return priceColumns.some((c) => c.name === top) ? top : null;
+}
+
+function splitPrefix(name: string): [string, string] {
+	const colon = name.indexOf(':');
+	return colon < 0 ? ['', name] : [name.slice(0, colon + 1), name.slice(colon + 1)];
+}

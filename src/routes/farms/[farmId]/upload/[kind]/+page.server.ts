@@ -2,7 +2,7 @@ import { error, fail, redirect } from '@sveltejs/kit';
 import { requireFarmAccess } from '$lib/server/auth/access';
 import { db } from '$lib/server/db';
 import { maxCsvBytes, readCsvFile, type CsvProblem } from '$lib/server/csv-upload';
-import { uploads, type Upload } from '$lib/server/uploads';
+import { uploads, type Preview } from '$lib/server/uploads';
 import type { Actions, PageServerLoad } from './$types';
 
 // Two steps, each a plain form post so they work without JavaScript: `preview` reads the file and shows
@@ -24,11 +24,11 @@ export const load = (async (event) => {
 
 export const actions = {
 	preview: async (event) => {
-		await requireFarmAccess(event, event.params.farmId, 'farm:edit');
+		const { farm } = await requireFarmAccess(event, event.params.farmId, 'farm:edit');
 		const upload = uploadOr404(event.params.kind);
 		const file = await readCsvFile((await event.request.formData()).get('file'));
 		if (!file.ok) return fail(400, { problems: [file.problem] });
-		const preview = previewOf(upload, file.text);
+		const preview = shown(await upload.preview(db, farm.id, file.text), file.text);
 		return preview.problems.length ? fail(400, preview) : preview;
 	},
 	import: async (event) => {
@@ -37,36 +37,23 @@ export const actions = {
 		const text = (await event.request.formData()).get('csv');
 		if (typeof text !== 'string') return fail(400, { problems: [noFile] });
 		const result = await upload.importText(db, farm.id, user.id, text);
-		if ('refused' in result) return fail(400, previewOf(upload, text));
-		if ('duplicates' in result) {
-			const problem = duplicatesProblem(upload.csv.noun, result.duplicates);
-			return fail(409, { ...previewOf(upload, text), problems: [problem], csv: null });
-		}
+		if ('refused' in result) return fail(400, shown(result.refused, text));
 		redirect(303, `/farms/${farm.id}/${upload.listPath}?imported=${result.imported}`);
 	}
 } satisfies Actions;
 
 const noFile: CsvProblem = { row: null, column: null, message: 'Choose a CSV file to upload.' };
 
-function previewOf(upload: Upload, text: string) {
-	const read = upload.read(text);
+/** The preview as the page shows it, with the text to send back when it can be imported. */
+function shown(preview: Preview, text: string) {
 	// The first rows are enough to see the file was read right; problems are listed for every row.
 	const shownRows = 200;
 	return {
-		header: read.header,
-		rows: read.cells.slice(0, shownRows),
-		rowCount: read.cells.length,
-		problems: read.ok ? [] : read.problems,
-		csv: read.ok ? text : null
-	};
-}
-
-function duplicatesProblem(noun: string, names: string[]): CsvProblem {
-	const listed = names.map((name) => `"${name}"`).join(', ');
-	return {
-		row: null,
-		column: 'name',
-		message: `Nothing was imported: these names repeat in the file or are ${noun} the farm has already: ${listed}. Rename or remove those rows.`
+		header: preview.header,
+		rows: preview.cells.slice(0, shownRows),
+		rowCount: preview.cells.length,
+		problems: preview.problems,
+		csv: preview.problems.length ? null : text
 	};
 }
 

@@ -14,6 +14,9 @@ export interface AuditDetails {
 	'crop.created': { crop: string; name: string };
 	'crop.updated': { crop: string; name: string };
 	'crop.deleted': { crop: string; name: string };
+	'operation.created': { operationId: string; name: string };
+	'operation.updated': { operationId: string; name: string };
+	'operation.deleted': { operationId: string; name: string };
 }
 export type AuditAction = keyof AuditDetails;
 

@@ -19,9 +19,14 @@ import {
 	type OperationQuantity,
 	type ShownQuantity
 } from '$lib/schemas/operations';
+import { setError, type FormPathLeavesWithErrors, type SuperValidated } from 'sveltekit-superforms';
+import { MONTH_ABBREVIATIONS } from '$lib/months';
+import { operationDefaultsById } from '$lib/operation-defaults';
+import { toFieldIssues } from '$lib/schemas/issues';
+import { operationBodySchema, type OperationBody } from '$lib/schemas/operations';
 import { unitSystems, type UnitSystem } from '$lib/unit-systems';
 import type { OperationRow, StatedOperation } from './db/field-operations';
-import type { displayUnits } from './display-units';
+import { displayUnits } from './display-units';
 
 const quoted = (names: string[]) => names.map((name) => `"${name}"`).join(', ');
 
@@ -332,4 +337,52 @@ export function operationFigures(op: StatedOperation, show: Show) {
 		labourHoursPerArea: show.pricePer(perAcre(totals.labourHours), 'area'),
 		repairsPerArea: show.pricePer(perAcre(totals.repairsUsd), 'area')
 	};
+}
+
+/**
+ * The form's values as an operation body, checked by the API's own schema; undefined after putting its
+ * messages on the form beside their inputs.
+ */
+export function operationBodyFromForm(
+	form: SuperValidated<OperationForm>,
+	units: OperationFormUnits,
+	stored?: StatedOperation
+): OperationBody | undefined {
+	const body = operationBodySchema.safeParse(operationFromForm(form.data, units, stored));
+	if (body.success) return body.data;
+	for (const { path, message } of toFieldIssues(body.error)) {
+		const input = inputOfPath.get(path) ?? (path === 'name' || path === 'month' ? path : 'kind');
+		setError(form, input as FormPathLeavesWithErrors<OperationForm>, message);
+	}
+	return undefined;
+}
+
+const statedAsLabels = new Map<OperationKind, string>([
+	['machine', 'by machine'],
+	['per-acre', 'per acre'],
+	['custom', 'hired']
+]);
+
+/** The units of the operations table's headers, in the farm's system. */
+export function operationTableUnits(system: UnitSystem) {
+	const show = displayUnits(system);
+	const area = show.unit('area');
+	return { area, diesel: show.unit('volumeRate') };
+}
+
+/** One operation (the farm's or a default) as a table row shows it. */
+export function shownOperation(op: StatedOperation, system: UnitSystem) {
+	return {
+		name: op.name,
+		by: op.by === 'custom' ? 'hired' : 'own',
+		month: MONTH_ABBREVIATIONS[op.month - 1],
+		statedAs: statedAsLabels.get(kindOf(op))!,
+		...operationFigures(op, displayUnits(system))
+	};
+}
+
+/** The source of the default an operation was copied from, or null for the farm's own. */
+export function sourceOf(copiedFrom: string | null): { name: string; source: string } | null {
+	const copied = copiedFrom === null ? undefined : operationDefaultsById.get(copiedFrom);
+	return copied ? { name: copied.name, source: copied.source } : null;
 }

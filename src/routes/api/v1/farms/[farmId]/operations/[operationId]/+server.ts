@@ -21,7 +21,7 @@ export const GET: RequestHandler = async (event) => {
 
 /**
  * Changes the values the body gives (owner or editor): the stored operation with the body over it must
- * be valid. A body that changes `by` or `statedAs` keeps only the name, month, key and copiedFrom, and
+ * be valid. A body that changes `by` or `statedAs` keeps only the name, month, `by`, key and copiedFrom, and
  * gives the rest; a `fuel` in the body replaces the stored one.
  */
 export const PATCH: RequestHandler = async (event) => {
@@ -60,13 +60,13 @@ async function operationOr404(farmId: string, operationId: string) {
 	return operation;
 }
 
-/** The body over the stored operation; over its name, month, key and copiedFrom only when it changes kind. */
+/** The body over the stored operation; over its name, month, `by`, key and copiedFrom only when it changes kind. */
 function mergedOver({ id: _id, ...values }: OperationRow, body: Record<string, unknown>) {
 	const storedStatedAs = values.by === 'own' ? values.statedAs : undefined;
 	const changesKind =
 		('by' in body && body.by !== values.by) ||
 		('statedAs' in body && body.statedAs !== storedStatedAs);
 	if (!changesKind) return { ...values, ...body };
-	const { key, copiedFrom, name, month } = values;
-	return { key, copiedFrom, name, month, ...body };
+	const { key, copiedFrom, name, month, by } = values;
+	return { key, copiedFrom, name, month, by, ...body };
 }

@@ -358,8 +358,8 @@ export function operationBodyFromForm(
 }
 
 const statedAsLabels = new Map<OperationKind, string>([
-	['machine', 'by machine'],
-	['per-acre', 'per acre'],
+	['machine', 'speed and width'],
+	['per-acre', 'rates per acre'],
 	['custom', 'hired']
 ]);
 
@@ -385,4 +385,35 @@ export function shownOperation(op: StatedOperation, system: UnitSystem) {
 export function sourceOf(copiedFrom: string | null): { name: string; source: string } | null {
 	const copied = copiedFrom === null ? undefined : operationDefaultsById.get(copiedFrom);
 	return copied ? { name: copied.name, source: copied.source } : null;
+}
+
+/** What an operation states, in words and the farm's units, for those who read it without the form. */
+export function statedValues(op: StatedOperation, units: OperationFormUnits): string[] {
+	const values = formValuesOf(op, units);
+	const say = (key: OperationQuantity, label: string) => {
+		const value = values[key];
+		if (value === null) return [];
+		// Dollars lead: "repairs $2.50/ac", not "2.5 $/ac".
+		if (units[key].usdPer) return [`${label} $${value.toFixed(2)}${units[key].symbol.slice(1)}`];
+		return [`${label} ${value} ${units[key].symbol}`];
+	};
+	if (op.by === 'custom') return ["Hired at the price set's custom rate"];
+	if (op.statedAs === 'per-acre') {
+		return [
+			...say('dieselPerArea', 'diesel'),
+			...say('machineHoursPerArea', 'machine'),
+			...say('labourHoursPerArea', 'labour'),
+			...say('repairsPerArea', 'repairs')
+		];
+	}
+	return [
+		...say('speed', 'speed'),
+		...say('width', 'width'),
+		...say('fieldEfficiencyPercent', 'field efficiency'),
+		...(values.fuelBasis === 'pto-power'
+			? [...say('tractorPower', 'tractor'), ...say('dieselPerPowerHour', 'diesel')]
+			: say('dieselPerArea', 'diesel')),
+		...say('labourFactor', 'labour'),
+		...say('repairsPerArea', 'repairs')
+	];
 }

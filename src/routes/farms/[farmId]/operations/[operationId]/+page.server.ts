@@ -19,7 +19,8 @@ import {
 	operationInUseMessage,
 	operationTableUnits,
 	shownOperation,
-	sourceOf
+	sourceOf,
+	statedValues
 } from '$lib/server/operation-setup';
 import type { Actions, PageServerLoad } from './$types';
 
@@ -49,7 +50,7 @@ export const load = (async (event) => {
 	]);
 	return {
 		farm: { id: farm.id, name: farm.name },
-		operation: { id, ...shownOperation(op, farm.unitSystem) },
+		operation: { id, ...shownOperation(op, farm.unitSystem), stated: statedValues(op, units) },
 		copied: sourceOf(copiedFrom),
 		canEdit,
 		confirmDelete,

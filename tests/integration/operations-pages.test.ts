@@ -105,7 +105,9 @@ describe('the operations page without JavaScript', () => {
 			name: 'Planting, hired',
 			month: '5',
 			kind: 'custom',
-			fuelBasis: 'per-acre'
+			fuelBasis: 'per-acre',
+			// A value left in an input a hired pass does not use is not checked or saved.
+			fieldEfficiencyPercent: '150'
 		});
 		expect(response.status).toBe(303);
 		expect(await operationRow(farmId, 'our-no-till-planter')).toMatchObject({

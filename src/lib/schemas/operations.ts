@@ -102,38 +102,39 @@ export const fuelInputs = new Map([
 	['pto-power', ['tractorPower', 'dieselPerPowerHour'] as const]
 ]);
 
-/** The operation form, with its quantities in the farm's units (`units` comes from the server). */
+/**
+ * The operation form, with its quantities in the farm's units (`units` comes from the server). A value is
+ * checked against its range only when the chosen way of stating the operation uses it, so a value left
+ * in an input that is now hidden never blocks saving.
+ */
 export function operationFormSchema(units: OperationFormUnits) {
-	const quantity = (key: OperationQuantity) => {
-		const { label, ...range } = units[key];
-		return amount(label, range).nullable();
-	};
+	const ranged = new Map(
+		Object.entries(units).map(([key, { label, ...range }]) => [key, amount(label, range)])
+	);
+	const quantity = z.number({ error: 'Enter a number.' }).nullable();
 	return z
 		.object({
 			name: machineSchema.shape.name,
 			month: month("the operation's month"),
 			kind: choice('how the operation is stated', operationKinds),
 			fuelBasis: choice('the fuel basis', ['per-acre', 'pto-power']),
-			speed: quantity('speed'),
-			width: quantity('width'),
-			fieldEfficiencyPercent: quantity('fieldEfficiencyPercent'),
-			dieselPerArea: quantity('dieselPerArea'),
-			tractorPower: quantity('tractorPower'),
-			dieselPerPowerHour: quantity('dieselPerPowerHour'),
-			labourFactor: quantity('labourFactor'),
-			repairsPerArea: quantity('repairsPerArea'),
-			machineHoursPerArea: quantity('machineHoursPerArea'),
-			labourHoursPerArea: quantity('labourHoursPerArea')
+			speed: quantity,
+			width: quantity,
+			fieldEfficiencyPercent: quantity,
+			dieselPerArea: quantity,
+			tractorPower: quantity,
+			dieselPerPowerHour: quantity,
+			labourFactor: quantity,
+			repairsPerArea: quantity,
+			machineHoursPerArea: quantity,
+			labourHoursPerArea: quantity
 		})
 		.superRefine((form, ctx) => {
-			// Only what the chosen way needs must be given; the plan file holds no other value.
 			for (const key of neededInputs(form)) {
-				if (form[key] === null) {
-					ctx.addIssue({
-						code: 'custom',
-						path: [key],
-						message: `Enter ${units[key].label} as a number.`
-					});
+				// A needed value left empty gets the message a missing number gets in the API.
+				const checked = ranged.get(key)!.safeParse(form[key] ?? undefined);
+				if (!checked.success) {
+					ctx.addIssue({ code: 'custom', path: [key], message: checked.error.issues[0].message });
 				}
 			}
 		});

@@ -5,7 +5,14 @@ import { asc, eq } from 'drizzle-orm';
 import { parsePlanDocument } from '../../src/lib/schemas/plan-file';
 import type { Db } from '../../src/lib/server/db/client';
 import { importPlanDocument } from '../../src/lib/server/db/plan-documents';
-import { auditLog, crops, fields, priceSetItems, priceSets } from '../../src/lib/server/db/schema';
+import {
+	auditLog,
+	crops,
+	fieldOperations,
+	fields,
+	priceSetItems,
+	priceSets
+} from '../../src/lib/server/db/schema';
 import { addMember, createFarm } from '../support/farms';
 import { newUser, registerUser, type Client } from '../support/http';
 
@@ -42,21 +49,27 @@ export async function importReferencePlan(db: Db, farmId: string) {
 }
 
 /**
- * Everything a fields, crops or price-set request could write for the farm: its fields, crops, price
- * sets with their items, and audit entries.
+ * Everything a farm set-up request could write for the farm: its fields, crops, price sets with their
+ * items, operations and audit entries.
  */
 export async function farmSnapshot(db: Db, farmId: string) {
-	const [fieldRows, cropRows, priceSetRows, priceItemRows, auditRows] = await Promise.all([
-		db.select().from(fields).where(eq(fields.farmId, farmId)).orderBy(asc(fields.id)),
-		db.select().from(crops).where(eq(crops.farmId, farmId)).orderBy(asc(crops.id)),
-		db.select().from(priceSets).where(eq(priceSets.farmId, farmId)).orderBy(asc(priceSets.id)),
-		db
-			.select({ item: priceSetItems })
-			.from(priceSetItems)
-			.innerJoin(priceSets, eq(priceSets.id, priceSetItems.priceSetId))
-			.where(eq(priceSets.farmId, farmId))
-			.orderBy(asc(priceSetItems.priceSetId), asc(priceSetItems.kind), asc(priceSetItems.key)),
-		db.select().from(auditLog).where(eq(auditLog.farmId, farmId)).orderBy(asc(auditLog.id))
-	]);
-	return { fieldRows, cropRows, priceSetRows, priceItemRows, auditRows };
+	const [fieldRows, cropRows, priceSetRows, priceItemRows, operationRows, auditRows] =
+		await Promise.all([
+			db.select().from(fields).where(eq(fields.farmId, farmId)).orderBy(asc(fields.id)),
+			db.select().from(crops).where(eq(crops.farmId, farmId)).orderBy(asc(crops.id)),
+			db.select().from(priceSets).where(eq(priceSets.farmId, farmId)).orderBy(asc(priceSets.id)),
+			db
+				.select({ item: priceSetItems })
+				.from(priceSetItems)
+				.innerJoin(priceSets, eq(priceSets.id, priceSetItems.priceSetId))
+				.where(eq(priceSets.farmId, farmId))
+				.orderBy(asc(priceSetItems.priceSetId), asc(priceSetItems.kind), asc(priceSetItems.key)),
+			db
+				.select()
+				.from(fieldOperations)
+				.where(eq(fieldOperations.farmId, farmId))
+				.orderBy(asc(fieldOperations.id)),
+			db.select().from(auditLog).where(eq(auditLog.farmId, farmId)).orderBy(asc(auditLog.id))
+		]);
+	return { fieldRows, cropRows, priceSetRows, priceItemRows, operationRows, auditRows };
 }

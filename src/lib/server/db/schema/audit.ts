@@ -18,6 +18,9 @@ export interface AuditDetails {
 	'price-set.created': { priceSetId: string; year: number };
 	'price-set.updated': { priceSetId: string; year: number };
 	'price-set.deleted': { priceSetId: string; year: number };
+	'operation.created': { operationId: string; name: string };
+	'operation.updated': { operationId: string; name: string };
+	'operation.deleted': { operationId: string; name: string };
 }
 export type AuditAction = keyof AuditDetails;
 

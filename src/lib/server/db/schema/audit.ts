@@ -14,6 +14,12 @@ export interface AuditDetails {
 	'crop.created': { crop: string; name: string };
 	'crop.updated': { crop: string; name: string };
 	'crop.deleted': { crop: string; name: string };
+	'practice.created': { practiceId: string; name: string };
+	'practice.updated': { practiceId: string; name: string };
+	'practice.deleted': { practiceId: string; name: string };
+	'rotation.created': { rotationId: string; name: string };
+	'rotation.updated': { rotationId: string; name: string };
+	'rotation.deleted': { rotationId: string; name: string };
 }
 export type AuditAction = keyof AuditDetails;
 

@@ -416,7 +416,7 @@ const planDocumentShape = z.strictObject({
 
 type Shape = z.output<typeof planDocumentShape>;
 type Path = (string | number)[];
-type CropPracticeShape = z.output<typeof cropPracticeSchema>;
+type CropPracticeShape = Omit<z.output<typeof cropPracticeSchema>, 'id'>;
 
 /** Largest yield goal per acre by sale unit: bounds that catch slips (common practice, no published source). */
 const maxYieldGoalBySaleUnit = new Map([

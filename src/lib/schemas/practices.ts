@@ -122,7 +122,9 @@ export function practiceFromForm(form: PracticeForm): {
 			: null,
 		nitrogen: {
 			appliedLbPerAcre:
-				form.nitrogenMode === 'economic-optimum' ? 'economic-optimum' : form.nitrogenAppliedLbPerAcre,
+				form.nitrogenMode === 'economic-optimum'
+					? 'economic-optimum'
+					: form.nitrogenAppliedLbPerAcre,
 			response: form.hasResponse
 				? {
 						interceptBuPerAcre: form.responseInterceptBuPerAcre,
@@ -167,7 +169,12 @@ export function practiceFromForm(form: PracticeForm): {
 		const parts = bodyPath.split('.');
 		const [head, second, third] = parts;
 		if (head === 'operations' && third !== undefined) {
-			const name = third === 'month' ? 'operationMonth' : third === 'passes' ? 'operationPasses' : 'operationKey';
+			const name =
+				third === 'month'
+					? 'operationMonth'
+					: third === 'passes'
+						? 'operationPasses'
+						: 'operationKey';
 			return `${name}[${steps[Number(second)]}]`;
 		}
 		if (head === 'coverMix' && second === 'species') {

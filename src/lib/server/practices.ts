@@ -1,10 +1,19 @@
 // What the practices and rotations pages and API share: the checks a body's shape cannot make (the
 // plan file's own), and refusals worded once.
 import { json } from '@sveltejs/kit';
+import { setError, type FormPathLeavesWithErrors, type SuperValidated } from 'sveltekit-superforms';
 import type { CropDefinition } from '$lib/schemas/crops';
-import type { FieldIssue } from '$lib/schemas/issues';
+import { toFieldIssues, type FieldIssue } from '$lib/schemas/issues';
 import { practiceIssues, rotationIssues } from '$lib/schemas/plan-file';
-import type { PracticeBody, RotationBody } from '$lib/schemas/practices';
+import {
+	practiceBodySchema,
+	practiceFromForm,
+	rotationBodySchema,
+	type PracticeBody,
+	type PracticeForm,
+	type RotationBody,
+	type RotationForm
+} from '$lib/schemas/practices';
 import type { PracticeToSave } from '$lib/server/db/crop-practices';
 import { listOperationChoices } from '$lib/server/db/crop-practices';
 import { listCropsWithBuiltIns } from '$lib/server/db/crops';
@@ -91,4 +100,66 @@ export function checkRotation(
 		};
 	}
 	return { ok: true, practiceIds: body.practices.map((key) => practiceIds.get(key)!) };
+}
+
+/**
+ * The practice form's values as a practice to save (less its key), by the practice body's schema and the
+ * plan file's cross-checks; undefined after putting their messages on the form beside their inputs.
+ */
+export function practiceFromFormOrErrors(
+	form: SuperValidated<PracticeForm>,
+	refs: PracticeReferences
+): Omit<PracticeToSave, 'key'> | undefined {
+	const { body, formPath } = practiceFromForm(form.data);
+	const parsed = practiceBodySchema.safeParse(body);
+	const issues = parsed.success
+		? (() => {
+				const checked = checkPractice(parsed.data, refs);
+				return checked.ok ? checked.practice : checked.issues;
+			})()
+		: toFieldIssues(parsed.error);
+	if (!Array.isArray(issues)) return issues;
+	for (const { path, message } of issues) {
+		setError(form, formPath(path) as FormPathLeavesWithErrors<PracticeForm>, message);
+	}
+	return undefined;
+}
+
+/**
+ * The rotation form's years as practice row ids (empty years left out), by the rotation body's schema
+ * and the farm's practices; undefined after putting the messages beside their inputs.
+ */
+export function rotationFromFormOrErrors(
+	form: SuperValidated<RotationForm>,
+	practiceIds: ReadonlyMap<string, string>
+): string[] | undefined {
+	const years = form.data.practice.flatMap((key, i) => (key ? [i] : []));
+	const body = { name: form.data.name, practices: years.map((i) => form.data.practice[i]) };
+	const parsed = rotationBodySchema.safeParse(body);
+	const checked = parsed.success ? checkRotation(parsed.data, practiceIds) : undefined;
+	if (checked?.ok) return checked.practiceIds;
+	const issues = checked ? checked.issues : toFieldIssues(parsed.error!);
+	for (const { path, message } of issues) {
+		const [head, index] = path.split('.');
+		const at =
+			head !== 'practices'
+				? head
+				: index === undefined
+					? 'practice'
+					: `practice[${years[Number(index)]}]`;
+		setError(form, at as FormPathLeavesWithErrors<RotationForm>, message);
+	}
+	return undefined;
+}
+
+/** What the practice form offers: the farm's crops and its catalogue of field operations. */
+export async function loadPracticeFormChoices(db: Db | Tx, farmId: string) {
+	const [crops, operations] = await Promise.all([
+		listCropsWithBuiltIns(db, farmId),
+		listOperationChoices(db, farmId)
+	]);
+	return {
+		crops: crops.map(({ id, name, soldBy, legume }) => ({ id, name, soldBy, legume })),
+		operations: operations.map(({ key, name, month }) => ({ key, name, month }))
+	};
 }

@@ -15,7 +15,7 @@ import {
 	type RotationForm
 } from '$lib/schemas/practices';
 import type { PracticeToSave } from '$lib/server/db/crop-practices';
-import { listOperationChoices } from '$lib/server/db/crop-practices';
+import { listOperationChoices, listPractices } from '$lib/server/db/crop-practices';
 import { listCropsWithBuiltIns } from '$lib/server/db/crops';
 import type { Db, Tx } from '$lib/server/db/client';
 
@@ -161,5 +161,23 @@ export async function loadPracticeFormChoices(db: Db | Tx, farmId: string) {
 	return {
 		crops: crops.map(({ id, name, soldBy, legume }) => ({ id, name, soldBy, legume })),
 		operations: operations.map(({ key, name, month }) => ({ key, name, month }))
+	};
+}
+
+/** The practices a rotation's years may be, by name, with their crop's name for the choice's label. */
+export async function loadRotationChoices(db: Db | Tx, farmId: string) {
+	const [practices, crops] = await Promise.all([
+		listPractices(db, farmId),
+		listCropsWithBuiltIns(db, farmId)
+	]);
+	const cropById = new Map(crops.map((crop) => [crop.id, crop]));
+	return {
+		practices,
+		cropById,
+		choices: practices.map((practice) => ({
+			key: practice.key,
+			name: practice.name,
+			cropName: cropById.get(practice.crop)?.name ?? practice.crop
+		}))
 	};
 }

@@ -1,11 +1,19 @@
 // Set-up shared by the fields and crops tests: a farm of a new owner's own, a reviewer of it, and
 // snapshots of what the farm holds, to show a refused request changed nothing.
 import { readFileSync } from 'node:fs';
-import { asc, eq } from 'drizzle-orm';
+import { asc, eq, inArray } from 'drizzle-orm';
 import { parsePlanDocument } from '../../src/lib/schemas/plan-file';
 import type { Db } from '../../src/lib/server/db/client';
 import { importPlanDocument } from '../../src/lib/server/db/plan-documents';
-import { auditLog, crops, fields } from '../../src/lib/server/db/schema';
+import {
+	auditLog,
+	cropPractices,
+	crops,
+	fields,
+	practiceOperations,
+	rotations,
+	rotationSteps
+} from '../../src/lib/server/db/schema';
 import { addMember, createFarm } from '../support/farms';
 import { newUser, registerUser, type Client } from '../support/http';
 
@@ -41,12 +49,39 @@ export async function importReferencePlan(db: Db, farmId: string) {
 	return parsed.plan;
 }
 
-/** Everything a fields or crops request could write for the farm: its fields, crops and audit entries. */
+/**
+ * Everything a farm set-up request could write for the farm: its fields, crops, practices with their
+ * operations, rotations with their years, and audit entries.
+ */
 export async function farmSnapshot(db: Db, farmId: string) {
-	const [fieldRows, cropRows, auditRows] = await Promise.all([
+	const [fieldRows, cropRows, practiceRows, rotationRows, auditRows] = await Promise.all([
 		db.select().from(fields).where(eq(fields.farmId, farmId)).orderBy(asc(fields.id)),
 		db.select().from(crops).where(eq(crops.farmId, farmId)).orderBy(asc(crops.id)),
+		db
+			.select()
+			.from(cropPractices)
+			.where(eq(cropPractices.farmId, farmId))
+			.orderBy(asc(cropPractices.id)),
+		db.select().from(rotations).where(eq(rotations.farmId, farmId)).orderBy(asc(rotations.id)),
 		db.select().from(auditLog).where(eq(auditLog.farmId, farmId)).orderBy(asc(auditLog.id))
 	]);
-	return { fieldRows, cropRows, auditRows };
+	const practiceIds = practiceRows.map((row) => row.id);
+	const rotationIds = rotationRows.map((row) => row.id);
+	const [operationRows, stepRows] = await Promise.all([
+		practiceIds.length
+			? db
+					.select()
+					.from(practiceOperations)
+					.where(inArray(practiceOperations.practiceId, practiceIds))
+					.orderBy(asc(practiceOperations.practiceId), asc(practiceOperations.sequence))
+			: [],
+		rotationIds.length
+			? db
+					.select()
+					.from(rotationSteps)
+					.where(inArray(rotationSteps.rotationId, rotationIds))
+					.orderBy(asc(rotationSteps.rotationId), asc(rotationSteps.position))
+			: []
+	]);
+	return { fieldRows, cropRows, practiceRows, operationRows, rotationRows, stepRows, auditRows };
 }

@@ -179,7 +179,7 @@ export function practiceFromForm(form: PracticeForm): {
 		}
 		if (head === 'coverMix' && second === 'species') {
 			const row = parts[2] === undefined ? undefined : species[Number(parts[2])];
-			if (row === undefined) return 'coverSeedId';
+			if (row === undefined) return 'coverSeedId._errors';
 			return parts[3] === 'lbPerAcre' ? `coverLbPerAcre[${row}]` : `coverSeedId[${row}]`;
 		}
 		return nestedFormNames.get(bodyPath) ?? nestedFormNames.get(head) ?? head;
@@ -198,7 +198,7 @@ const nestedFormNames = new Map([
 	['nitrogen.response.interceptBuPerAcre', 'responseInterceptBuPerAcre'],
 	['nitrogen.response.linearBuPerLbN', 'responseLinearBuPerLbN'],
 	['nitrogen.response.quadraticBuPerLbN2', 'responseQuadraticBuPerLbN2'],
-	['operations', 'operationKey'],
+	['operations', 'operationKey._errors'],
 	['coverMix', 'hasCover'],
 	['coverMix.biomassLbDmPerAcre', 'coverBiomassLbDmPerAcre'],
 	['coverMix.legumeSharePercent', 'coverLegumeSharePercent'],

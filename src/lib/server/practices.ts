@@ -145,7 +145,7 @@ export function rotationFromFormOrErrors(
 			head !== 'practices'
 				? head
 				: index === undefined
-					? 'practice'
+					? 'practice._errors'
 					: `practice[${years[Number(index)]}]`;
 		setError(form, at as FormPathLeavesWithErrors<RotationForm>, message);
 	}

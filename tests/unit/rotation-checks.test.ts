@@ -86,5 +86,8 @@ describe('rotation checks', () => {
 		// Common practice, no published source: a legume fixes its own N, so the credit is not used.
 		const leaves = year('Oat–pea, then a cover', oatPea, { nitrogenCreditToNextCropLbPerAcre: 10 });
 		expect(rules([fullNCorn, leaves, beans])).toEqual([[3, 'credit-to-legume']]);
+		// Under 10 lb N/ac is not worth a warning (common practice, no published source).
+		const little = { ...leaves, nitrogenCreditToNextCropLbPerAcre: 9 };
+		expect(rules([fullNCorn, little, beans])).toEqual([]);
 	});
 });

@@ -35,6 +35,12 @@ export interface RotationWarning {
  */
 export const cornAfterSoybeanMinLbN = 100;
 
+/**
+ * A credit too small to plan around: under 10 lb N/ac is inside the error of any credit estimate
+ * (common practice, no published source).
+ */
+export const minCreditWorthNotingLbN = 10;
+
 /** The N credit a year leaves for the next: the stated prior-crop credit and its legume cover's. */
 export function creditLeftLbPerAcre(year: RotationYear): number {
 	const cover = year.coverMix;
@@ -86,7 +92,7 @@ export function checkRotation(years: readonly RotationYear[]): RotationWarning[]
 			}
 		}
 
-		if (year.crop.legume && credit > 0) {
+		if (year.crop.legume && credit >= minCreditWorthNotingLbN) {
 			// Common practice, no published source: a legume fixes its own N, so a credit left to it is not used.
 			warn(
 				'credit-to-legume',

@@ -1,17 +1,24 @@
 // Set-up shared by the fields and crops tests: a farm of a new owner's own, a reviewer of it, and
 // snapshots of what the farm holds, to show a refused request changed nothing.
 import { readFileSync } from 'node:fs';
-import { asc, eq } from 'drizzle-orm';
+import { asc, eq, inArray } from 'drizzle-orm';
 import { parsePlanDocument } from '../../src/lib/schemas/plan-file';
 import type { Db } from '../../src/lib/server/db/client';
 import { importPlanDocument } from '../../src/lib/server/db/plan-documents';
 import {
 	auditLog,
+	cropPractices,
 	crops,
+	farms,
 	fieldOperations,
 	fields,
+	herds,
+	people,
+	practiceOperations,
 	priceSetItems,
-	priceSets
+	priceSets,
+	rotations,
+	rotationSteps
 } from '../../src/lib/server/db/schema';
 import { addMember, createFarm } from '../support/farms';
 import { newUser, registerUser, type Client } from '../support/http';
@@ -49,27 +56,89 @@ export async function importReferencePlan(db: Db, farmId: string) {
 }
 
 /**
- * Everything a farm set-up request could write for the farm: its fields, crops, price sets with their
- * items, operations and audit entries.
+ * Everything a farm set-up request could write for the farm: the farm row (its labour hours follow its
+ * people), fields, crops, herd, people, price sets with their items, operations, practices with their
+ * operations, rotations with their years, and audit entries.
  */
 export async function farmSnapshot(db: Db, farmId: string) {
-	const [fieldRows, cropRows, priceSetRows, priceItemRows, operationRows, auditRows] =
-		await Promise.all([
-			db.select().from(fields).where(eq(fields.farmId, farmId)).orderBy(asc(fields.id)),
-			db.select().from(crops).where(eq(crops.farmId, farmId)).orderBy(asc(crops.id)),
-			db.select().from(priceSets).where(eq(priceSets.farmId, farmId)).orderBy(asc(priceSets.id)),
-			db
-				.select({ item: priceSetItems })
-				.from(priceSetItems)
-				.innerJoin(priceSets, eq(priceSets.id, priceSetItems.priceSetId))
-				.where(eq(priceSets.farmId, farmId))
-				.orderBy(asc(priceSetItems.priceSetId), asc(priceSetItems.kind), asc(priceSetItems.key)),
-			db
-				.select()
-				.from(fieldOperations)
-				.where(eq(fieldOperations.farmId, farmId))
-				.orderBy(asc(fieldOperations.id)),
-			db.select().from(auditLog).where(eq(auditLog.farmId, farmId)).orderBy(asc(auditLog.id))
-		]);
-	return { fieldRows, cropRows, priceSetRows, priceItemRows, operationRows, auditRows };
+	const byFarm = <
+		T extends
+			| typeof fields
+			| typeof crops
+			| typeof herds
+			| typeof people
+			| typeof priceSets
+			| typeof fieldOperations
+			| typeof cropPractices
+			| typeof rotations
+	>(
+		table: T
+	) =>
+		db
+			.select()
+			.from(table as typeof fields)
+			.where(eq(table.farmId, farmId))
+			.orderBy(asc(table.id));
+	const [
+		farmRows,
+		fieldRows,
+		cropRows,
+		herdRows,
+		peopleRows,
+		priceSetRows,
+		operationRows,
+		practiceRows,
+		rotationRows,
+		auditRows
+	] = await Promise.all([
+		db.select().from(farms).where(eq(farms.id, farmId)),
+		byFarm(fields),
+		byFarm(crops),
+		byFarm(herds),
+		byFarm(people),
+		byFarm(priceSets),
+		byFarm(fieldOperations),
+		byFarm(cropPractices),
+		byFarm(rotations),
+		db.select().from(auditLog).where(eq(auditLog.farmId, farmId)).orderBy(asc(auditLog.id))
+	]);
+	const ids = (rows: { id: string }[]) => rows.map((row) => row.id);
+	const [priceItemRows, practiceOperationRows, stepRows] = await Promise.all([
+		priceSetRows.length
+			? db
+					.select()
+					.from(priceSetItems)
+					.where(inArray(priceSetItems.priceSetId, ids(priceSetRows)))
+					.orderBy(asc(priceSetItems.priceSetId), asc(priceSetItems.kind), asc(priceSetItems.key))
+			: [],
+		practiceRows.length
+			? db
+					.select()
+					.from(practiceOperations)
+					.where(inArray(practiceOperations.practiceId, ids(practiceRows)))
+					.orderBy(asc(practiceOperations.practiceId), asc(practiceOperations.sequence))
+			: [],
+		rotationRows.length
+			? db
+					.select()
+					.from(rotationSteps)
+					.where(inArray(rotationSteps.rotationId, ids(rotationRows)))
+					.orderBy(asc(rotationSteps.rotationId), asc(rotationSteps.position))
+			: []
+	]);
+	return {
+		farmRows,
+		fieldRows,
+		cropRows,
+		herdRows,
+		peopleRows,
+		priceSetRows,
+		priceItemRows,
+		operationRows,
+		practiceRows,
+		practiceOperationRows,
+		rotationRows,
+		stepRows,
+		auditRows
+	};
 }

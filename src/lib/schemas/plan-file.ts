@@ -416,6 +416,7 @@ const planDocumentShape = z.strictObject({
 
 type Shape = z.output<typeof planDocumentShape>;
 type Path = (string | number)[];
+type CropPracticeShape = Omit<z.output<typeof cropPracticeSchema>, 'id'>;
 
 /** Largest yield goal per acre by sale unit: bounds that catch slips (common practice, no published source). */
 const maxYieldGoalBySaleUnit = new Map([
@@ -467,6 +468,89 @@ export function familyHoursByMonth(
 	return hours;
 }
 
+/** One problem with a practice or rotation, its path inside that practice or rotation. */
+export interface PartIssue {
+	path: Path;
+	message: string;
+}
+
+/**
+ * What a practice's shape alone cannot check: its crop is known (and takes an N response curve only when
+ * sold by the bushel and not a legume), its yield goal fits the crop's sale unit, its seed has one rate,
+ * its operations are known and an economic-optimum rate has a curve. Plan files and the practices API
+ * both ask this.
+ */
+export function practiceIssues(
+	practice: CropPracticeShape,
+	crops: ReadonlyMap<string, CropDefinition>,
+	operationIds: ReadonlySet<string>
+): PartIssue[] {
+	const issues: PartIssue[] = [];
+	const refuse = (path: Path, message: string) => issues.push({ path, message });
+	const crop = crops.get(practice.crop);
+	if (!crop) {
+		refuse(['crop'], `Unknown crop "${practice.crop}": add it to crops or use a built-in crop`);
+	} else {
+		const maxGoal = maxYieldGoalBySaleUnit.get(crop.soldBy)!;
+		if (practice.yieldGoalPerAcre > maxGoal) {
+			refuse(
+				['yieldGoalPerAcre'],
+				`A ${crop.name} yield goal is at most ${maxGoal.toLocaleString('en-US')} ${crop.soldBy} per acre.`
+			);
+		}
+		if (practice.nitrogen.response && crop.soldBy !== 'bu') {
+			refuse(
+				['nitrogen', 'response'],
+				`N response curves are in bu/ac: ${crop.name} is sold by the ${crop.soldBy}`
+			);
+		}
+		if (practice.nitrogen.response && crop.legume) {
+			refuse(['nitrogen', 'response'], `${crop.name} is a legume: it takes no N response curve`);
+		}
+		const residue = practice.residueGrazing;
+		if (
+			residue &&
+			residue.leafHuskLbDmPerUnit === undefined &&
+			crop.residueLeafHuskLbDmPerUnit === null
+		) {
+			refuse(
+				['residueGrazing', 'leafHuskLbDmPerUnit'],
+				`${crop.name} has no grazable residue of its own: state the leaf and husk per ${crop.soldBy}`
+			);
+		}
+	}
+	if (practice.seed) {
+		const { seedsPerAcre, lbPerAcre } = practice.seed;
+		if ((seedsPerAcre === undefined) === (lbPerAcre === undefined)) {
+			refuse(['seed'], 'Give either seedsPerAcre or lbPerAcre');
+		}
+	}
+	practice.operations.forEach((step, j) => {
+		if (!operationIds.has(step.operationId)) {
+			refuse(['operations', j, 'operationId'], `Unknown operation "${step.operationId}"`);
+		}
+	});
+	if (practice.nitrogen.appliedLbPerAcre === 'economic-optimum' && !practice.nitrogen.response) {
+		refuse(
+			['nitrogen', 'appliedLbPerAcre'],
+			'An economic-optimum rate needs a nitrogen response curve'
+		);
+	}
+	return issues;
+}
+
+/** Every practice a rotation names is known (plan files and the rotations API both ask). */
+export function rotationIssues(
+	rotation: Pick<z.output<typeof rotationSchema>, 'practices'>,
+	practiceIds: ReadonlySet<string>
+): PartIssue[] {
+	return rotation.practices.flatMap((practiceId, j) =>
+		practiceIds.has(practiceId)
+			? []
+			: [{ path: ['practices', j], message: `Unknown practice "${practiceId}"` }]
+	);
+}
+
 /** Refuses cross-references the shape alone cannot: unknown ids, duplicates, phases, missing prices. */
 function checkReferences(doc: Shape, crops: Map<string, CropDefinition>, ctx: z.RefinementCtx) {
 	const refuse = (path: Path, message: string) => ctx.addIssue({ code: 'custom', path, message });
@@ -496,68 +580,20 @@ function checkReferences(doc: Shape, crops: Map<string, CropDefinition>, ctx: z.
 	const seedsRated = new Set<string>();
 	const lbRated = new Set<string>();
 	doc.practices.forEach((practice, i) => {
-		const at = (...rest: Path): Path => ['practices', i, ...rest];
-		const crop = crops.get(practice.crop);
-		if (!crop) {
-			refuse(at('crop'), `Unknown crop "${practice.crop}": add it to crops or use a built-in crop`);
-		} else {
-			const maxGoal = maxYieldGoalBySaleUnit.get(crop.soldBy)!;
-			if (practice.yieldGoalPerAcre > maxGoal) {
-				refuse(
-					at('yieldGoalPerAcre'),
-					`A ${crop.name} yield goal is at most ${maxGoal.toLocaleString('en-US')} ${crop.soldBy} per acre.`
-				);
-			}
-			if (practice.nitrogen.response && crop.soldBy !== 'bu') {
-				refuse(
-					at('nitrogen', 'response'),
-					`N response curves are in bu/ac: ${crop.name} is sold by the ${crop.soldBy}`
-				);
-			}
-			if (practice.nitrogen.response && crop.legume) {
-				refuse(
-					at('nitrogen', 'response'),
-					`${crop.name} is a legume: it takes no N response curve`
-				);
-			}
-			const residue = practice.residueGrazing;
-			if (
-				residue &&
-				residue.leafHuskLbDmPerUnit === undefined &&
-				crop.residueLeafHuskLbDmPerUnit === null
-			) {
-				refuse(
-					at('residueGrazing', 'leafHuskLbDmPerUnit'),
-					`${crop.name} has no grazable residue of its own: state the leaf and husk per ${crop.soldBy}`
-				);
-			}
+		for (const issue of practiceIssues(practice, crops, operationIds)) {
+			refuse(['practices', i, ...issue.path], issue.message);
 		}
 		if (practice.seed) {
-			const { seedsPerAcre, lbPerAcre, seedId } = practice.seed;
-			if ((seedsPerAcre === undefined) === (lbPerAcre === undefined)) {
-				refuse(at('seed'), 'Give either seedsPerAcre or lbPerAcre');
-			}
+			const { seedsPerAcre, seedId } = practice.seed;
 			(seedsPerAcre === undefined ? lbRated : seedsRated).add(seedId);
 		}
 		practice.coverMix?.species.forEach((s) => lbRated.add(s.seedId));
-		practice.operations.forEach((step, j) => {
-			if (!operationIds.has(step.operationId)) {
-				refuse(at('operations', j, 'operationId'), `Unknown operation "${step.operationId}"`);
-			}
-		});
-		if (practice.nitrogen.appliedLbPerAcre === 'economic-optimum' && !practice.nitrogen.response) {
-			refuse(
-				at('nitrogen', 'appliedLbPerAcre'),
-				'An economic-optimum rate needs a nitrogen response curve'
-			);
-		}
 	});
 
 	doc.rotations.forEach((rotation, i) => {
-		rotation.practices.forEach((practiceId, j) => {
-			if (!practiceIds.has(practiceId))
-				refuse(['rotations', i, 'practices', j], `Unknown practice "${practiceId}"`);
-		});
+		for (const issue of rotationIssues(rotation, practiceIds)) {
+			refuse(['rotations', i, ...issue.path], issue.message);
+		}
 	});
 
 	const assigned = new Set<string>();

@@ -21,6 +21,12 @@ export interface AuditDetails {
 	'operation.created': { operationId: string; name: string };
 	'operation.updated': { operationId: string; name: string };
 	'operation.deleted': { operationId: string; name: string };
+	'practice.created': { practiceId: string; name: string };
+	'practice.updated': { practiceId: string; name: string };
+	'practice.deleted': { practiceId: string; name: string };
+	'rotation.created': { rotationId: string; name: string };
+	'rotation.updated': { rotationId: string; name: string };
+	'rotation.deleted': { rotationId: string; name: string };
 }
 export type AuditAction = keyof AuditDetails;
 

@@ -158,6 +158,36 @@ describe('uploading prices', () => {
 	});
 });
 
+describe('uploading operations', () => {
+	const opsHeader =
+		'name,key,by,month,statedAs,speedMph,widthFt,fieldEfficiencyPercent,fuelBasis,dieselGallonsPerAcre,labourFactor,repairsUsdPerAcre,machineHoursPerAcre,labourHoursPerAcre';
+
+	it('imports own and hired passes; a key the farm has is named by its row', async () => {
+		const good = `${opsHeader}\nDisk,disk,own,4,machine,6,24,80,per-acre,0.75,1.1,2,,\nHired combining,hired-combine,custom,10,,,,,,,,,,\n`;
+		const body = new FormData();
+		body.append('file', new File([good], 'operations.csv', { type: 'text/csv' }));
+		const preview = await owner.fetch(`/farms/${farmId}/upload/operations?/preview`, {
+			method: 'POST',
+			body,
+			headers: { Accept: 'text/html' }
+		});
+		const csv = readyCsv(await preview.text());
+		expect(csv).toBe(good);
+		const response = await owner.postForm(`/farms/${farmId}/upload/operations?/import`, {
+			csv: csv!
+		});
+		expect(response.headers.get('location')).toBe(`/farms/${farmId}/operations?imported=2`);
+
+		const before = await farmSnapshot(db, farmId);
+		const again = await owner.postForm(`/farms/${farmId}/upload/operations?/import`, {
+			csv: `${opsHeader}\nDisk again,disk,own,4,machine,6,24,80,per-acre,0.75,1.1,2,,\n`
+		});
+		expect(again.status).toBe(400);
+		expect(await again.text()).toMatch(/data-problem-row="2"[^]*?key[^]*?has the key "disk"/);
+		expect(await farmSnapshot(db, farmId)).toEqual(before);
+	});
+});
+
 describe('a reviewer', () => {
 	it('gets no upload page and may not post an import', async () => {
 		const reviewer = await reviewerOf(db, farmId, 'uploads-reviewer');

@@ -1,6 +1,6 @@
 // Reading CSV uploads as spreadsheets write them, and naming each problem by row and column.
 import { describe, expect, it } from 'vitest';
-import { fieldsCsv, priceSetsCsv } from '../../src/lib/server/csv-kinds';
+import { fieldsCsv, operationsCsv, priceSetsCsv } from '../../src/lib/server/csv-kinds';
 import {
 	csvTemplate,
 	duplicateNames,
@@ -168,5 +168,54 @@ describe('reading a price-set CSV', () => {
 			[2, 'crop:corn'],
 			[2, 'seedPerLb:cereal-rye']
 		]);
+	});
+});
+
+describe('reading an operations CSV', () => {
+	const head =
+		'name,key,by,month,statedAs,speedMph,widthFt,fieldEfficiencyPercent,fuelBasis,dieselGallonsPerAcre,tractorMaxPtoHp,dieselGallonsPerHpHour,labourFactor,repairsUsdPerAcre,machineHoursPerAcre,labourHoursPerAcre';
+
+	it('reads each of the three ways an operation is stated', () => {
+		const text = [
+			head,
+			'Disk,,own,4,machine,6,24,80,pto-power,,180,,1.1,2,,',
+			// Univ. of Missouri G1208: no-till drill 0.33 gal/ac (REFERENCE-VALUES §2)
+			'No-till drill,,own,5,per-acre,,,,,0.33,,,,,0.1,0.12',
+			'Combining,custom-combine,custom,10,,,,,,,,,,,,'
+		].join('\n');
+		const read = readCsv(text, operationsCsv);
+		expect(read.ok && read.rows).toEqual([
+			expect.objectContaining({
+				by: 'own',
+				statedAs: 'machine',
+				speedMph: 6,
+				fuel: { basis: 'pto-power', tractorMaxPtoHp: 180, dieselGallonsPerHpHour: 0.044 }
+			}),
+			expect.objectContaining({
+				statedAs: 'per-acre',
+				dieselGallonsPerAcre: 0.33,
+				machineHoursPerAcre: 0.1,
+				labourHoursPerAcre: 0.12
+			}),
+			{ name: 'Combining', key: 'custom-combine', by: 'custom', month: 10 }
+		]);
+	});
+
+	it('names a fuel problem by its own column, and a per-acre row with machine values', () => {
+		const text = [
+			head,
+			'Disk,,own,4,machine,6,24,80,per-acre,25,,,1.1,2,,',
+			'Drill,,own,5,per-acre,6,,,,0.33,,,,,0.1,0.12'
+		].join('\n');
+		const read = readCsv(text, operationsCsv);
+		expect(!read.ok && read.problems.map((p) => [p.row, p.column])).toEqual([
+			[2, 'dieselGallonsPerAcre'],
+			[3, null]
+		]);
+	});
+
+	it('writes a template that reads back as one valid operation', () => {
+		const read = readCsv(csvTemplate(operationsCsv), operationsCsv);
+		expect(read.ok && read.rows).toHaveLength(1);
 	});
 });

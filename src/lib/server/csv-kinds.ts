@@ -1,6 +1,7 @@
 // What each CSV upload holds: its columns (named as the API's JSON names, US customary units like the
 // plan file) and how a row becomes the aggregate's API body.
 import { fieldBodySchema, type FieldBody } from '$lib/schemas/farm-setup';
+import { operationBodySchema, type OperationBody } from '$lib/schemas/operations';
 import { priceSetBodySchema, type PriceSet } from '$lib/schemas/price-sets';
 import type { CsvColumn, CsvKind } from './csv-upload';
 
@@ -98,3 +99,58 @@ function splitPrefix(name: string): [string, string] {
 	const colon = name.indexOf(':');
 	return colon < 0 ? ['', name] : [name.slice(0, colon + 1), name.slice(colon + 1)];
 }
+
+// Operations: one row each, the columns of all three ways an operation is stated; a row fills those of
+// its own way (`by` own or custom; an own one `statedAs` machine or per-acre) and leaves the others empty.
+const fuelColumns = new Map([
+	['fuelBasis', 'basis'],
+	['tractorMaxPtoHp', 'tractorMaxPtoHp'],
+	['dieselGallonsPerHpHour', 'dieselGallonsPerHpHour']
+]);
+
+const operationColumns = [
+	column('name', 'Field cultivator, 30 ft', false, true),
+	column('key', 'field-cultivator', false),
+	column('by', 'own', false, true),
+	column('month', '4', true, true),
+	column('statedAs', 'machine', false),
+	column('speedMph', '7', true),
+	column('widthFt', '30', true),
+	column('fieldEfficiencyPercent', '85', true),
+	column('fuelBasis', 'per-acre', false),
+	column('dieselGallonsPerAcre', '0.6', true),
+	column('tractorMaxPtoHp', '', true),
+	column('dieselGallonsPerHpHour', '', true),
+	column('labourFactor', '1.1', true),
+	column('repairsUsdPerAcre', '1.5', true),
+	column('machineHoursPerAcre', '', true),
+	column('labourHoursPerAcre', '', true)
+];
+
+export const operationsCsv: CsvKind<OperationBody> = {
+	noun: 'operations',
+	columns: operationColumns,
+	toInput(cells) {
+		const byMachine = cells.get('by') === 'own' && cells.get('statedAs') === 'machine';
+		if (!byMachine) return Object.fromEntries(cells);
+		// A machine's diesel is stated per acre or from its tractor's power: the plan file's `fuel`.
+		const operation: Record<string, unknown> = {};
+		const fuel: Record<string, unknown> = {};
+		for (const [name, value] of cells) {
+			const fuelKey = fuelColumns.get(name);
+			if (fuelKey) fuel[fuelKey] = value;
+			else if (name === 'dieselGallonsPerAcre') fuel.dieselGallonsPerAcre = value;
+			else operation[name] = value;
+		}
+		return { ...operation, fuel };
+	},
+	schema: operationBodySchema,
+	columnOf(path) {
+		const [top, inner] = path.split('.');
+		if (top === 'fuel') {
+			if (!inner) return 'fuelBasis';
+			return [...fuelColumns].find(([, key]) => key === inner)?.[0] ?? inner;
+		}
+		return operationColumns.some((c) => c.name === top) ? top : null;
+	}
+};

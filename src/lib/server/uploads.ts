@@ -2,9 +2,11 @@
 // and how its rows are imported, all or none.
 import type { Db } from './db/client';
 import { importFields, listFields } from './db/fields';
+import { addFieldOperations, listFieldOperations } from './db/field-operations';
 import { createPriceSets, listPriceSets } from './db/price-sets';
-import { fieldsCsv, priceColumnOf, priceSetsCsv } from './csv-kinds';
+import { fieldsCsv, operationsCsv, priceColumnOf, priceSetsCsv } from './csv-kinds';
 import { csvTemplate, readCsv, type CsvKind, type CsvProblem } from './csv-upload';
+import { operationKeyTakenMessage } from './operation-setup';
 import { findPriceableIds, unknownIdIssues, yearTakenMessage } from './prices';
 
 /** What the preview shows: the file as read and every problem in it. */
@@ -159,8 +161,50 @@ const priceSetsUpload = defineUpload({
 	}
 });
 
+/** Each row whose key another row of the file, or an operation of the farm, already has. */
+function repeatedKeyProblems(
+	keys: (string | undefined)[],
+	taken: ReadonlySet<string>
+): CsvProblem[] {
+	const firstRow = new Map<string, number>();
+	return keys.flatMap((key, i) => {
+		if (key === undefined) return [];
+		const earlier = firstRow.get(key);
+		if (earlier === undefined) firstRow.set(key, sheetRow(i));
+		const message = taken.has(key)
+			? operationKeyTakenMessage(key)
+			: earlier !== undefined
+				? `"${key}" is also the key in row ${earlier}: give each operation its own key.`
+				: null;
+		return message ? [{ row: sheetRow(i), column: 'key', message }] : [];
+	});
+}
+
+const operationsUpload = defineUpload({
+	title: 'Field operations',
+	listPath: 'operations',
+	note: 'US units as in plan files (mph, ft, gal per acre, hp). "by" is "own" or "custom"; an own operation is "statedAs" "machine" (speed, width, efficiency and fuelBasis "per-acre" or "pto-power") or "per-acre" (diesel, machine and labour hours per acre). A key left empty is made from the name.',
+	csv: operationsCsv,
+	async checkRows(db, farmId, rows) {
+		const stored = await listFieldOperations(db, farmId);
+		return repeatedKeyProblems(
+			rows.map((row) => row.key),
+			new Set(stored.map((operation) => operation.key))
+		);
+	},
+	async importRows(db, farmId, userId, rows) {
+		const result = await addFieldOperations(db, farmId, userId, rows);
+		if ('added' in result) return { imported: result.added.length };
+		const { index, key } = result.keyTaken;
+		return {
+			problems: [{ row: sheetRow(index), column: 'key', message: operationKeyTakenMessage(key) }]
+		};
+	}
+});
+
 /** Uploads by the name in their URL (`/farms/…/upload/fields`). */
 export const uploads = new Map<string, Upload>([
 	['fields', fieldsUpload],
-	['price-sets', priceSetsUpload]
+	['price-sets', priceSetsUpload],
+	['operations', operationsUpload]
 ]);

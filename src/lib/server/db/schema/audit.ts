@@ -14,6 +14,11 @@ export interface AuditDetails {
 	'crop.created': { crop: string; name: string };
 	'crop.updated': { crop: string; name: string };
 	'crop.deleted': { crop: string; name: string };
+	'herd.updated': { head: number };
+	'herd.deleted': Record<string, never>;
+	'person.created': { personId: string; name: string };
+	'person.updated': { personId: string; name: string };
+	'person.deleted': { personId: string; name: string };
 }
 export type AuditAction = keyof AuditDetails;
 

@@ -5,7 +5,7 @@ import { asc, eq } from 'drizzle-orm';
 import { parsePlanDocument } from '../../src/lib/schemas/plan-file';
 import type { Db } from '../../src/lib/server/db/client';
 import { importPlanDocument } from '../../src/lib/server/db/plan-documents';
-import { auditLog, crops, fields } from '../../src/lib/server/db/schema';
+import { auditLog, crops, farms, fields, herds, people } from '../../src/lib/server/db/schema';
 import { addMember, createFarm } from '../support/farms';
 import { newUser, registerUser, type Client } from '../support/http';
 
@@ -41,12 +41,18 @@ export async function importReferencePlan(db: Db, farmId: string) {
 	return parsed.plan;
 }
 
-/** Everything a fields or crops request could write for the farm: its fields, crops and audit entries. */
+/**
+ * Everything a farm set-up request could write for the farm: its row (labour hours), fields, crops,
+ * herd, people and audit entries.
+ */
 export async function farmSnapshot(db: Db, farmId: string) {
-	const [fieldRows, cropRows, auditRows] = await Promise.all([
+	const [farmRows, fieldRows, cropRows, herdRows, peopleRows, auditRows] = await Promise.all([
+		db.select().from(farms).where(eq(farms.id, farmId)),
 		db.select().from(fields).where(eq(fields.farmId, farmId)).orderBy(asc(fields.id)),
 		db.select().from(crops).where(eq(crops.farmId, farmId)).orderBy(asc(crops.id)),
+		db.select().from(herds).where(eq(herds.farmId, farmId)),
+		db.select().from(people).where(eq(people.farmId, farmId)).orderBy(asc(people.id)),
 		db.select().from(auditLog).where(eq(auditLog.farmId, farmId)).orderBy(asc(auditLog.id))
 	]);
-	return { fieldRows, cropRows, auditRows };
+	return { farmRows, fieldRows, cropRows, herdRows, peopleRows, auditRows };
 }

@@ -1,8 +1,11 @@
 // /api/v1/farms/[farmId]/herd and /people: the plan file's herd and person schemas, the farm guards,
 // the farm's labour hours kept as the family's summed, and refusals that leave the database as it was.
+import { readFileSync } from 'node:fs';
 import { and, eq } from 'drizzle-orm';
 import { beforeAll, describe, expect, it } from 'vitest';
-import { auditLog, farms } from '../../src/lib/server/db/schema';
+import { parsePlanDocument } from '../../src/lib/schemas/plan-file';
+import { exportPlanDocument, importPlanDocument } from '../../src/lib/server/db/plan-documents';
+import { auditLog, farms, plans } from '../../src/lib/server/db/schema';
 import { testDb } from '../support/db';
 import { Client, signedIn } from '../support/http';
 import { demoUsers } from '../support/server';
@@ -373,5 +376,28 @@ describe('who may', () => {
 		expect((await lender.json(peopleUrl(demoId), 'POST', operator)).status).toBe(403);
 		expect((await lender.json(herdUrl(demoId), 'PUT', herd)).status).toBe(403);
 		expect(await farmSnapshot(db, demoId)).toEqual(before);
+	});
+});
+
+describe('plan files', () => {
+	it('carry the farm’s people in and out; the import sums the family’s hours into the farm’s', async () => {
+		const { farmId: farm } = await ownFarm('people-plan-file');
+		const file = JSON.parse(readFileSync('scenarios/reference.json', 'utf8'));
+		const workers = [
+			{ id: 'ada', ...operator, hoursAvailableByMonth: file.farm.labourHoursAvailableByMonth },
+			{ id: 'cal', ...hired, notes: 'Harvest only.' }
+		];
+		const parsed = parsePlanDocument({ ...file, people: workers });
+		if (!parsed.ok) throw new Error(JSON.stringify(parsed.issues));
+		await db.transaction((tx) =>
+			importPlanDocument(tx, { farmId: farm, userId: null, doc: parsed.plan, isReference: true })
+		);
+		expect(await farmLabour(farm)).toEqual(file.farm.labourHoursAvailableByMonth);
+		const [plan] = await db.select({ id: plans.id }).from(plans).where(eq(plans.farmId, farm));
+		const exported = parsePlanDocument(await exportPlanDocument(db, plan.id));
+		expect(exported.ok && exported.plan.people).toEqual([
+			{ ...workers[0], wageUsdPerHour: null, notes: '' },
+			workers[1]
+		]);
 	});
 });

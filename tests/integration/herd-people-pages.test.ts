@@ -120,6 +120,11 @@ describe('the herd page', () => {
 		expect(ask).toContain('The farm keeps no cattle?');
 		expect((await owner.postForm(`/farms/${farmId}/herd?/remove`, {})).status).toBe(303);
 		expect(await herdRow()).toBeUndefined();
+		const blank = await (await owner.fetch(`/farms/${farmId}/herd`, html)).text();
+		expect(blank).toContain('No herd yet');
+		expect(blank).toMatch(/data-value="bales"[^>]*>\s*— bales/);
+		const none = await (await reviewer.fetch(`/farms/${farmId}/herd`, html)).text();
+		expect(mainOf(none)).toContain('This farm keeps no herd.');
 	});
 });
 

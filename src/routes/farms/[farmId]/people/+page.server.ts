@@ -28,14 +28,12 @@ export const load = (async (event) => {
 			name: person.name,
 			role: person.role,
 			hoursAvailableByMonth: person.hoursAvailableByMonth,
-			wageUsdPerHour: person.wageUsdPerHour,
-			notes: person.notes
+			wageUsdPerHour: person.wageUsdPerHour
 		})),
 		totals: {
 			familyHoursByMonth: monthly(true),
 			hiredHoursByMonth: monthly(false),
-			hasFamily: rows.some((person) => isFamilyLabour(person.role)),
-			hasHired: rows.some((person) => !isFamilyLabour(person.role))
+			hasFamily: rows.some((person) => isFamilyLabour(person.role))
 		},
 		form
 	};

@@ -267,6 +267,20 @@ describe('people', () => {
 				`Another person on this farm has the key "${ada.key}": choose another.`
 			],
 			[
+				'POST',
+				peopleUrl(),
+				{ ...partner, hoursAvailableByMonth: [700, ...months(0).slice(1)] },
+				['hoursAvailableByMonth.0'],
+				"The family's hours in January would be 850: a farm's labour is at most 744 hours a month."
+			],
+			[
+				'PATCH',
+				`${peopleUrl()}/${ada.id}`,
+				{ hoursAvailableByMonth: [...months(150).slice(1), 744.5] },
+				['hoursAvailableByMonth.11'],
+				'Hours in a month must be at most 744 hours.'
+			],
+			[
 				'PATCH',
 				`${peopleUrl()}/${ada.id}`,
 				{ role: 'hired' },

@@ -161,6 +161,15 @@ describe('the people page', () => {
 		expect(await response.text()).toMatch(
 			/data-error-for="wageUsdPerHour"[^>]*>\s*Give Sam Dahl's wage: hired help is paid by the hour.\s*</
 		);
+		// Ida 160 + Per 40 + 600 = 800 h in January, past the 744 a farm's month may hold.
+		const tooMany = await owner.postForm(`/farms/${farmId}/people?/create`, {
+			...personForm('Ola Lund', 'partner', 10),
+			hoursAvailableByMonth: ['600', ...hours(10).slice(1)]
+		});
+		expect(tooMany.status).toBe(400);
+		expect(await tooMany.text()).toContain(
+			"Jan: The family's hours in January would be 800: a farm's labour is at most 744 hours a month."
+		);
 		expect(await farmSnapshot(db, farmId)).toEqual(before);
 	});
 

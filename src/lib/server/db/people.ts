@@ -4,6 +4,7 @@ import { keyFromName } from '$lib/schemas/farm-setup';
 import type { PersonBody } from '$lib/schemas/people';
 import { familyHoursByMonth, type Person } from '$lib/schemas/plan-file';
 import { isFamilyLabour } from '$lib/farm-lists';
+import { farmSchema } from '$lib/schemas/farm';
 import { insertAuditEntry } from './audit';
 import type { Db, Tx } from './client';
 import { farms, people } from './schema';
@@ -73,11 +74,41 @@ export async function lockFarm(tx: Tx, farmId: string) {
 	await tx.select({ id: farms.id }).from(farms).where(eq(farms.id, farmId)).for('update');
 }
 
-/** Sets the farm's labour hours to the family's summed, when it has family people (call it locked). */
+// The farm's own bound on labour hours in a month, so the summed hours are always valid farm settings.
+const maxFarmHoursInMonth = farmSchema.shape.labourHoursAvailableByMonth.element.maxValue ?? 0;
+
+/** A people write that would sum the family's hours past what a farm's settings may hold. */
+export class FamilyHoursTooHigh extends Error {
+	constructor(
+		readonly month: number,
+		readonly hours: number,
+		readonly max = maxFarmHoursInMonth
+	) {
+		super(`family hours in month ${month + 1} would be ${hours}`);
+	}
+}
+
+/**
+ * Sets the farm's labour hours to the family's summed, when it has family people (call it locked);
+ * throws FamilyHoursTooHigh, rolling the transaction back, when a month's sum is past the farm's bound.
+ */
 export async function updateFarmLabourFromPeople(tx: Tx, farmId: string) {
 	const hours = await findFamilyHoursByMonth(tx, farmId);
-	if (hours) {
-		await tx.update(farms).set({ labourHoursAvailableByMonth: hours }).where(eq(farms.id, farmId));
+	if (!hours) return;
+	const month = hours.findIndex((h) => h > maxFarmHoursInMonth);
+	if (month >= 0) throw new FamilyHoursTooHigh(month, hours[month]);
+	await tx.update(farms).set({ labourHoursAvailableByMonth: hours }).where(eq(farms.id, farmId));
+}
+
+/** The saved person, or the month the family's hours would run past the farm's bound (nothing saved). */
+export type PersonWrite = { person: PersonRow } | { tooHigh: FamilyHoursTooHigh };
+
+async function refusingTooHigh(write: () => Promise<PersonRow>): Promise<PersonWrite> {
+	try {
+		return { person: await write() };
+	} catch (err) {
+		if (err instanceof FamilyHoursTooHigh) return { tooHigh: err };
+		throw err;
 	}
 }
 
@@ -99,54 +130,61 @@ export async function choosePersonKey(
 	return keyFromName(name, taken, 'person');
 }
 
-/** Adds one person (key chosen and free), then the farm's labour hours and the audit entry, together. */
+/**
+ * Adds one person (key chosen and free), then the farm's labour hours and the audit entry, together;
+ * nothing when the family's hours would run past the farm's bound.
+ */
 export async function insertPerson(
 	db: Db | Tx,
 	farmId: string,
 	userId: string,
 	person: PersonBody & { key: string }
-): Promise<PersonRow> {
-	return db.transaction(async (tx) => {
-		await lockFarm(tx, farmId);
-		const [row] = await tx
-			.insert(people)
-			.values({ ...person, farmId })
-			.returning(personReturning);
-		await updateFarmLabourFromPeople(tx, farmId);
-		await insertAuditEntry(tx, {
-			farmId,
-			userId,
-			action: 'person.created',
-			detail: { personId: row.id, name: row.name }
-		});
-		return row;
-	});
+): Promise<PersonWrite> {
+	return refusingTooHigh(() =>
+		db.transaction(async (tx) => {
+			await lockFarm(tx, farmId);
+			const [row] = await tx
+				.insert(people)
+				.values({ ...person, farmId })
+				.returning(personReturning);
+			await updateFarmLabourFromPeople(tx, farmId);
+			await insertAuditEntry(tx, {
+				farmId,
+				userId,
+				action: 'person.created',
+				detail: { personId: row.id, name: row.name }
+			});
+			return row;
+		})
+	);
 }
 
-/** Replaces a person's values (key checked free), then the farm's labour hours and the audit entry. */
+/** Replaces a person's values (key checked free), then the farm's labour hours and the audit entry, or nothing. */
 export async function updatePerson(
 	db: Db | Tx,
 	farmId: string,
 	userId: string,
 	personId: string,
 	person: PersonBody & { key: string }
-): Promise<PersonRow> {
-	return db.transaction(async (tx) => {
-		await lockFarm(tx, farmId);
-		const [row] = await tx
-			.update(people)
-			.set(person)
-			.where(and(eq(people.farmId, farmId), eq(people.id, personId)))
-			.returning(personReturning);
-		await updateFarmLabourFromPeople(tx, farmId);
-		await insertAuditEntry(tx, {
-			farmId,
-			userId,
-			action: 'person.updated',
-			detail: { personId, name: row.name }
-		});
-		return row;
-	});
+): Promise<PersonWrite> {
+	return refusingTooHigh(() =>
+		db.transaction(async (tx) => {
+			await lockFarm(tx, farmId);
+			const [row] = await tx
+				.update(people)
+				.set(person)
+				.where(and(eq(people.farmId, farmId), eq(people.id, personId)))
+				.returning(personReturning);
+			await updateFarmLabourFromPeople(tx, farmId);
+			await insertAuditEntry(tx, {
+				farmId,
+				userId,
+				action: 'person.updated',
+				detail: { personId, name: row.name }
+			});
+			return row;
+		})
+	);
 }
 
 /**

@@ -4,7 +4,7 @@ import { isFamilyLabour } from '$lib/farm-lists';
 import { requireFarmAccess, roleAllows } from '$lib/server/auth/access';
 import { db } from '$lib/server/db';
 import { choosePersonKey, insertPerson, listPeople } from '$lib/server/db/people';
-import { newPersonValues, personFormAdapter } from '$lib/server/people';
+import { familyHoursFormFailure, newPersonValues, personFormAdapter } from '$lib/server/people';
 import type { Actions, PageServerLoad } from './$types';
 
 export const load = (async (event) => {
@@ -45,7 +45,8 @@ export const actions = {
 		const form = await superValidate(event.request, personFormAdapter);
 		if (!form.valid) return fail(400, { form });
 		const key = (await choosePersonKey(db, farm.id, { name: form.data.name }))!;
-		await insertPerson(db, farm.id, user.id, { ...form.data, key });
+		const saved = await insertPerson(db, farm.id, user.id, { ...form.data, key });
+		if ('tooHigh' in saved) return familyHoursFormFailure(form, saved.tooHigh);
 		redirect(303, `/farms/${farm.id}/people?added=${encodeURIComponent(key)}`);
 	}
 } satisfies Actions;

@@ -3,7 +3,7 @@ import { fail, superValidate } from 'sveltekit-superforms';
 import { requireFarmAccess } from '$lib/server/auth/access';
 import { db } from '$lib/server/db';
 import { deletePerson, findPersonById, updatePerson } from '$lib/server/db/people';
-import { personFormAdapter } from '$lib/server/people';
+import { familyHoursFormFailure, personFormAdapter } from '$lib/server/people';
 import type { Actions, PageServerLoad } from './$types';
 
 // `?confirm=delete` asks before deleting: the question is a page state, so it works without JavaScript.
@@ -25,7 +25,11 @@ export const actions = {
 		const person = await personOr404(farm.id, event.params.personId);
 		const form = await superValidate(event.request, personFormAdapter);
 		if (!form.valid) return fail(400, { form });
-		await updatePerson(db, farm.id, user.id, person.id, { ...form.data, key: person.key });
+		const saved = await updatePerson(db, farm.id, user.id, person.id, {
+			...form.data,
+			key: person.key
+		});
+		if ('tooHigh' in saved) return familyHoursFormFailure(form, saved.tooHigh);
 		redirect(303, `/farms/${farm.id}/people`);
 	},
 	delete: async (event) => {

@@ -4,7 +4,7 @@ import { invalidInput, invalidValue, readJson } from '$lib/server/api';
 import { requireFarmAccess } from '$lib/server/auth/access';
 import { db } from '$lib/server/db';
 import { choosePersonKey, insertPerson, listPeople } from '$lib/server/db/people';
-import { personKeyTakenMessage } from '$lib/server/people';
+import { familyHoursRefusal, personKeyTakenMessage } from '$lib/server/people';
 import type { RequestHandler } from './$types';
 
 /** The farm's people, operator first and hired help last: `{ people: [{ id, key, name, role, … }] }`. */
@@ -24,5 +24,6 @@ export const POST: RequestHandler = async (event) => {
 	const key = await choosePersonKey(db, farm.id, { name: person.name, wanted });
 	if (key === undefined) return invalidValue('key', personKeyTakenMessage(wanted!));
 	const saved = await insertPerson(db, farm.id, user.id, { ...person, key });
-	return json({ person: saved }, { status: 201 });
+	if ('tooHigh' in saved) return familyHoursRefusal(saved.tooHigh);
+	return json({ person: saved.person }, { status: 201 });
 };

@@ -5,7 +5,7 @@ import { invalidInput, invalidValue, readJson } from '$lib/server/api';
 import { requireFarmAccess } from '$lib/server/auth/access';
 import { db } from '$lib/server/db';
 import { choosePersonKey, deletePerson, findPersonById, updatePerson } from '$lib/server/db/people';
-import { personKeyTakenMessage } from '$lib/server/people';
+import { familyHoursRefusal, personKeyTakenMessage } from '$lib/server/people';
 import type { RequestHandler } from './$types';
 
 export const GET: RequestHandler = async (event) => {
@@ -30,7 +30,9 @@ export const PATCH: RequestHandler = async (event) => {
 		personId: id
 	});
 	if (key === undefined) return invalidValue('key', personKeyTakenMessage(person.key));
-	return json({ person: await updatePerson(db, farm.id, user.id, id, person) });
+	const saved = await updatePerson(db, farm.id, user.id, id, person);
+	if ('tooHigh' in saved) return familyHoursRefusal(saved.tooHigh);
+	return json({ person: saved.person });
 };
 
 /** Deletes a person (owner or editor); the farm's labour hours are the family left, summed. */

@@ -5,10 +5,16 @@ import { readFileSync, readdirSync } from 'node:fs';
 import { eq } from 'drizzle-orm';
 import type { FarmRole } from '../../src/lib/roles';
 import type { FarmSettings } from '../../src/lib/schemas/farm';
-import { parsePlanDocument, type PlanDocument } from '../../src/lib/schemas/plan-file';
+import {
+	familyHoursByMonth,
+	parsePlanDocument,
+	type Person as Worker,
+	type PlanDocument
+} from '../../src/lib/schemas/plan-file';
 import { hashPassword } from '../../src/lib/server/auth/password';
 import { createDb } from '../../src/lib/server/db/client';
 import { createFarm, insertMemberships } from '../../src/lib/server/db/farms';
+import { insertPeople } from '../../src/lib/server/db/people';
 import { importPlanDocument } from '../../src/lib/server/db/plan-documents';
 import { users } from '../../src/lib/server/db/schema';
 
@@ -36,6 +42,45 @@ const mapleCouleePeople: People = {
 		['lender', 'reviewer']
 	]
 };
+
+/**
+ * Who works on Maple Coulee Farm (invented). The family's hours sum, month by month, to the farm's
+ * labour hours in scenarios/reference.json; the hired hand is paid by the hour.
+ */
+const mapleCouleeWorkers: Worker[] = [
+	{
+		id: 'ruth',
+		name: 'Ruth Halvorsen',
+		role: 'operator',
+		hoursAvailableByMonth: [120, 120, 130, 170, 190, 180, 170, 170, 180, 200, 150, 120],
+		wageUsdPerHour: null,
+		notes: ''
+	},
+	{
+		id: 'tomas',
+		name: 'Tomas Halvorsen',
+		role: 'partner',
+		hoursAvailableByMonth: [60, 60, 60, 90, 120, 100, 80, 80, 110, 130, 80, 60],
+		wageUsdPerHour: null,
+		notes: 'Drives school bus mornings and afternoons in the school year.'
+	},
+	{
+		id: 'signe',
+		name: 'Signe Halvorsen',
+		role: 'family',
+		hoursAvailableByMonth: [20, 20, 30, 40, 50, 40, 50, 50, 50, 50, 30, 20],
+		wageUsdPerHour: null,
+		notes: 'Fifteen; after school and weekends.'
+	},
+	{
+		id: 'wade',
+		name: 'Wade Kessler',
+		role: 'hired',
+		hoursAvailableByMonth: [0, 0, 0, 40, 80, 40, 20, 20, 40, 80, 0, 0],
+		wageUsdPerHour: 18.5,
+		notes: 'Part-time in planting and harvest.'
+	}
+];
 
 // A second client farm of the lender's, with settings only. Invented figures.
 const birchHollow: { settings: FarmSettings; people: People } = {
@@ -102,9 +147,13 @@ try {
 				);
 				return farm.id;
 			};
-			// Maple Coulee Farm is its plan files: settings, fields, herd, prices, practices and plans.
+			// Maple Coulee Farm is its plan files (settings, fields, herd, prices, practices, plans) and its people.
 			const reference = plans.find(({ file }) => file === 'reference.json');
 			if (!reference) throw new Error('scenarios/reference.json is missing');
+			const summed = familyHoursByMonth(mapleCouleeWorkers);
+			if (summed.some((h, m) => h !== reference.doc.farm.labourHoursAvailableByMonth[m])) {
+				throw new Error(`The demo family's hours (${summed}) are not the farm's labour hours.`);
+			}
 			const mapleCouleeId = await addFarm(reference.doc.farm, mapleCouleePeople);
 			for (const { file, doc } of plans) {
 				await importPlanDocument(tx, {
@@ -114,6 +163,7 @@ try {
 					isReference: file === 'reference.json'
 				});
 			}
+			await insertPeople(tx, mapleCouleeId, mapleCouleeWorkers);
 			await addFarm(birchHollow.settings, birchHollow.people);
 		});
 		console.log('demo data seeded');

@@ -12,3 +12,18 @@ export const MONTH_ABBREVIATIONS = [
 	'Nov',
 	'Dec'
 ] as const;
+
+export const MONTH_NAMES = [
+	'January',
+	'February',
+	'March',
+	'April',
+	'May',
+	'June',
+	'July',
+	'August',
+	'September',
+	'October',
+	'November',
+	'December'
+] as const;

@@ -1,4 +1,4 @@
-import { daysPerAnimalUnitMonth, lbLiveWeightPerAnimalUnit } from './units';
+import { daysPerAnimalUnitMonth, lbLiveWeightPerAnimalUnit } from './animal-units';
 
 /** Animal units: live weight ÷ 1,000 lb (Society for Range Management glossary). */
 export function animalUnits(head: number, averageWeightLb: number): number {

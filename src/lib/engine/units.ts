@@ -29,10 +29,7 @@ export const kgPerHaPerLbPerAcre = factor('lb/acreExact', 'kg/hectare');
 export const litresPerHaPerGallonPerAcre = factor('gal/acreExact', 'L/hectare');
 export const tonnesPerHaPerTonPerAcre = factor('ton/acreExact', 'tonne/hectare');
 
-/** An animal-unit month is one animal unit for 30 days (Society for Range Management glossary). */
-export const daysPerAnimalUnitMonth = 30;
-/** Animal units are counted per 1,000 lb of live weight (Society for Range Management glossary). */
-export const lbLiveWeightPerAnimalUnit = 1000;
+export { daysPerAnimalUnitMonth, lbLiveWeightPerAnimalUnit } from './animal-units';
 
 /**
  * Sale units by weight: a yield or price per sale unit in metric tonnes, given the pounds in one unit

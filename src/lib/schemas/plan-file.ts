@@ -80,6 +80,19 @@ export const personSchema = z.strictObject({
 	notes: notes('notes')
 });
 
+/** Why a person's wage does not fit their role, or null when it does (the file and the API both ask). */
+export function wageMessage(
+	person: Pick<z.output<typeof personSchema>, 'name' | 'role' | 'wageUsdPerHour'>
+) {
+	if (person.role === 'hired' && person.wageUsdPerHour === null) {
+		return `Give ${person.name}'s wage: hired help is paid by the hour.`;
+	}
+	if (person.role !== 'hired' && person.wageUsdPerHour !== null) {
+		return 'Only hired help has a wage; leave it empty.';
+	}
+	return null;
+}
+
 const choreHours = (label: string) => amount(label, { min: 0, max: 24, unit: 'hours a day' });
 
 export const herdSchema = z.strictObject({
@@ -433,15 +446,8 @@ const minGrainPriceForResponse = 0.01;
 function checkPeople(doc: Shape, refuse: (path: Path, message: string) => void) {
 	const family = doc.people.filter((person) => isFamilyLabour(person.role));
 	doc.people.forEach((person, i) => {
-		if (person.role === 'hired' && person.wageUsdPerHour === null) {
-			refuse(
-				['people', i, 'wageUsdPerHour'],
-				`Give ${person.name}'s wage: hired help is paid by the hour.`
-			);
-		}
-		if (person.role !== 'hired' && person.wageUsdPerHour !== null) {
-			refuse(['people', i, 'wageUsdPerHour'], 'Only hired help has a wage; leave it empty.');
-		}
+		const message = wageMessage(person);
+		if (message) refuse(['people', i, 'wageUsdPerHour'], message);
 	});
 	if (!family.length) return;
 	const summed = familyHoursByMonth(doc.people);

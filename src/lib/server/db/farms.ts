@@ -3,6 +3,7 @@ import type { FarmRole } from '$lib/roles';
 import type { FarmSettings } from '$lib/schemas/farm';
 import { insertAuditEntry } from './audit';
 import type { Db, Tx } from './client';
+import { findFamilyHoursByMonth, lockFarm } from './people';
 import {
 	cropPractices,
 	farms,
@@ -72,15 +73,26 @@ export async function insertMemberships(
 	}
 }
 
+/**
+ * Saves the farm's settings and its audit entry, together; the settings as saved. A farm with family
+ * people keeps their hours summed as its labour hours, whatever hours the settings give.
+ */
 export async function updateFarm(
 	db: Db | Tx,
 	farmId: string,
 	userId: string,
 	settings: FarmSettings
-) {
-	await db.transaction(async (tx) => {
-		await tx.update(farms).set(settings).where(eq(farms.id, farmId));
+): Promise<FarmSettings> {
+	return db.transaction(async (tx) => {
+		await lockFarm(tx, farmId);
+		const familyHours = await findFamilyHoursByMonth(tx, farmId);
+		const saved = {
+			...settings,
+			labourHoursAvailableByMonth: familyHours ?? settings.labourHoursAvailableByMonth
+		};
+		await tx.update(farms).set(saved).where(eq(farms.id, farmId));
 		await insertAuditEntry(tx, { farmId, userId, action: 'farm.updated' });
+		return saved;
 	});
 }
 

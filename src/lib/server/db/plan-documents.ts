@@ -11,14 +11,16 @@ import { farmSettingsOf } from './farms';
 import { exportFieldOperations, insertFieldOperations } from './field-operations';
 import { insertFields } from './fields';
 import { insertHerd } from './herds';
+import { exportPeople, insertPeople } from './people';
 import { findPlanWithCurrentVersion, insertPlan } from './plans';
 import { exportPriceSets, insertPriceSets } from './price-sets';
 import { exportRotations, insertRotations } from './rotations';
 
 /**
- * Saves a validated plan document into a farm: its crops, fields, herd, prices, operations, practices and
- * rotations, then the plan as version 1. Parts the farm already has under the same id are kept as they
- * are, so several plan files of one farm share them. Runs inside the caller's transaction.
+ * Saves a validated plan document into a farm: its crops, fields, people, herd, prices, operations,
+ * practices and rotations, then the plan as version 1. Parts the farm already has under the same id are
+ * kept as they are, so several plan files of one farm share them; with people, the farm's labour hours
+ * become its family people's summed. Runs inside the caller's transaction.
  */
 export async function importPlanDocument(
 	tx: Tx,
@@ -31,6 +33,7 @@ export async function importPlanDocument(
 ) {
 	await insertCrops(tx, farmId, doc.crops);
 	const fieldIds = await insertFields(tx, farmId, doc.fields);
+	await insertPeople(tx, farmId, doc.people);
 	if (doc.herd) await insertHerd(tx, farmId, doc.herd);
 	await insertPriceSets(tx, farmId, doc.priceSets);
 	const operationIds = await insertFieldOperations(tx, farmId, doc.operations);
@@ -62,7 +65,7 @@ export async function importPlanDocument(
 }
 
 /**
- * The plan file of a plan's current version: the farm with its operations, practices and rotations,
+ * The plan file of a plan's current version: the farm with its people, operations, practices and rotations,
  * the fields the plan assigns, and the prices of the plan's years. Parse it with `parsePlanDocument`.
  */
 export async function exportPlanDocument(db: Db | Tx, planId: string): Promise<PlanDocumentInput> {
@@ -74,8 +77,9 @@ export async function exportPlanDocument(db: Db | Tx, planId: string): Promise<P
 		a.field.key.localeCompare(b.field.key)
 	);
 	const years = Array.from({ length: version.years }, (_, i) => version.startYear + i);
-	const [crops, operations, practices, rotations, priceSets] = await Promise.all([
+	const [crops, people, operations, practices, rotations, priceSets] = await Promise.all([
 		exportCrops(db, farm.id),
+		exportPeople(db, farm.id),
 		exportFieldOperations(db, farm.id),
 		exportCropPractices(db, farm.id),
 		exportRotations(db, farm.id),
@@ -99,6 +103,7 @@ export async function exportPlanDocument(db: Db | Tx, planId: string): Promise<P
 			cashRentUsdPerAcre: field.cashRentUsdPerAcre,
 			notes: field.notes
 		})),
+		people,
 		herd: version.herd,
 		operations,
 		practices,

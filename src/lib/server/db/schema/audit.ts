@@ -27,6 +27,11 @@ export interface AuditDetails {
 	'rotation.created': { rotationId: string; name: string };
 	'rotation.updated': { rotationId: string; name: string };
 	'rotation.deleted': { rotationId: string; name: string };
+	'herd.updated': { head: number };
+	'herd.deleted': Record<string, never>;
+	'person.created': { personId: string; name: string };
+	'person.updated': { personId: string; name: string };
+	'person.deleted': { personId: string; name: string };
 }
 export type AuditAction = keyof AuditDetails;
 

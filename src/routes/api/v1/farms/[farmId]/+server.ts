@@ -11,13 +11,13 @@ export const GET: RequestHandler = async (event) => {
 	return json({ farm: farmSettingsOf(farm), role });
 };
 
-/** Replaces the farm's settings (owner or editor). */
+/** Replaces the farm's settings (owner or editor); labour hours stay the family's when it has people. */
 export const PUT: RequestHandler = async (event) => {
 	const { user, farm, role } = await requireFarmAccess(event, event.params.farmId, 'farm:edit');
 	const body = await readJson(event.request);
 	if (!body.ok) return body.response;
 	const parsed = farmSchema.safeParse(body.body);
 	if (!parsed.success) return invalidInput(parsed.error);
-	await updateFarm(db, farm.id, user.id, parsed.data);
-	return json({ farm: { ...farmSettingsOf(farm), ...parsed.data }, role });
+	const saved = await updateFarm(db, farm.id, user.id, parsed.data);
+	return json({ farm: { ...farmSettingsOf(farm), ...saved }, role });
 };

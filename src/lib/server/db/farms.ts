@@ -12,6 +12,7 @@ import {
 	herds,
 	memberships,
 	plans,
+	people,
 	priceSets,
 	rotations,
 	users
@@ -108,29 +109,39 @@ export async function listMembers(db: Db | Tx, farmId: string) {
 
 /** How far the farm is set up: one count per part, for the farm home's checklist. */
 export async function getFarmSetup(db: Db | Tx, farmId: string) {
-	const [fieldRows, herdRows, priceRows, operationRows, practiceRows, rotationRows, planRows] =
-		await Promise.all([
-			db
-				.select({ n: count(), acres: sum(fields.acres) })
-				.from(fields)
-				.where(eq(fields.farmId, farmId)),
-			db
-				.select({ n: count(), head: sum(herds.head) })
-				.from(herds)
-				.where(eq(herds.farmId, farmId)),
-			db.select({ n: count() }).from(priceSets).where(eq(priceSets.farmId, farmId)),
-			db.select({ n: count() }).from(fieldOperations).where(eq(fieldOperations.farmId, farmId)),
-			db.select({ n: count() }).from(cropPractices).where(eq(cropPractices.farmId, farmId)),
-			db.select({ n: count() }).from(rotations).where(eq(rotations.farmId, farmId)),
-			db
-				.select({ n: count(), name: plans.name, isReference: plans.isReference })
-				.from(plans)
-				.where(eq(plans.farmId, farmId))
-				.groupBy(plans.name, plans.isReference)
-		]);
+	const [
+		fieldRows,
+		herdRows,
+		peopleRows,
+		priceRows,
+		operationRows,
+		practiceRows,
+		rotationRows,
+		planRows
+	] = await Promise.all([
+		db
+			.select({ n: count(), acres: sum(fields.acres) })
+			.from(fields)
+			.where(eq(fields.farmId, farmId)),
+		db
+			.select({ n: count(), head: sum(herds.head) })
+			.from(herds)
+			.where(eq(herds.farmId, farmId)),
+		db.select({ n: count() }).from(people).where(eq(people.farmId, farmId)),
+		db.select({ n: count() }).from(priceSets).where(eq(priceSets.farmId, farmId)),
+		db.select({ n: count() }).from(fieldOperations).where(eq(fieldOperations.farmId, farmId)),
+		db.select({ n: count() }).from(cropPractices).where(eq(cropPractices.farmId, farmId)),
+		db.select({ n: count() }).from(rotations).where(eq(rotations.farmId, farmId)),
+		db
+			.select({ n: count(), name: plans.name, isReference: plans.isReference })
+			.from(plans)
+			.where(eq(plans.farmId, farmId))
+			.groupBy(plans.name, plans.isReference)
+	]);
 	return {
 		fields: { count: fieldRows[0].n, acres: Number(fieldRows[0].acres ?? 0) },
 		herds: { count: herdRows[0].n, head: Number(herdRows[0].head ?? 0) },
+		people: peopleRows[0].n,
 		priceSets: priceRows[0].n,
 		fieldOperations: operationRows[0].n,
 		cropPractices: practiceRows[0].n,

@@ -156,7 +156,7 @@ describe('an owner', () => {
 			/5 fields\s*230\.75/
 		);
 		await expect(page.getByTestId('tenure-summary').textContent()).resolves.toMatch(
-			/151 ac\s*owned · 80 ac\s*cash-rented, \$19,200 rent a year/
+			/151 ac\s*owned · 80 ac\s*cash-rented, \$19,200 rent a\s+year/
 		);
 		await page.close();
 	});

@@ -11,9 +11,6 @@ export default defineConfig({
 	test: {
 		expect: { requireAssertions: true },
 		allowOnly: false,
-		// Two workers even on a 2-core machine (the default keeps one core free): the integration and
-		// end-to-end projects then run side by side, each one file at a time, against the one server.
-		maxWorkers: 2,
 		projects: [
 			{
 				extends: './vite.config.ts',

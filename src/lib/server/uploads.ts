@@ -74,19 +74,39 @@ function defineUpload<T>(spec: UploadSpec<T>): Upload {
 	};
 }
 
-/** Each row whose name another row of the file, or a field of the farm, already has. */
-function repeatedNameProblems(names: string[], taken: ReadonlySet<string>): CsvProblem[] {
+/**
+ * Each row whose value in `column` another row of the file, or the farm, already has (`taken`, as
+ * `fold` writes them); the rest have none. Messages say which, from the value and the earlier row.
+ */
+function repeatedValueProblems(
+	values: (string | undefined)[],
+	taken: ReadonlySet<string>,
+	column: string,
+	fold: (value: string) => string,
+	say: { taken: (value: string) => string; again: (value: string, row: number) => string }
+): CsvProblem[] {
 	const firstRow = new Map<string, number>();
-	return names.flatMap((name, i) => {
-		const folded = name.trim().toLowerCase();
+	return values.flatMap((value, i) => {
+		if (value === undefined) return [];
+		const folded = fold(value);
 		const earlier = firstRow.get(folded);
 		if (earlier === undefined) firstRow.set(folded, sheetRow(i));
 		const message = taken.has(folded)
-			? `The farm already has a field named "${name}": rename the row, or change that field on the fields page.`
+			? say.taken(value)
 			: earlier !== undefined
-				? `"${name}" is also the name in row ${earlier}: give each field its own name.`
+				? say.again(value, earlier)
 				: null;
-		return message ? [{ row: sheetRow(i), column: 'name', message }] : [];
+		return message ? [{ row: sheetRow(i), column, message }] : [];
+	});
+}
+
+const foldName = (name: string) => name.trim().toLowerCase();
+
+function repeatedNameProblems(names: string[], taken: ReadonlySet<string>) {
+	return repeatedValueProblems(names, taken, 'name', foldName, {
+		taken: (name) =>
+			`The farm already has a field named "${name}": rename the row, or change that field on the fields page.`,
+		again: (name, row) => `"${name}" is also the name in row ${row}: give each field its own name.`
 	});
 }
 
@@ -97,7 +117,7 @@ const fieldsUpload = defineUpload({
 	csv: fieldsCsv,
 	async checkRows(db, farmId, rows) {
 		const fields = await listFields(db, farmId);
-		const taken = new Set(fields.map((field) => field.name.trim().toLowerCase()));
+		const taken = new Set(fields.map((field) => foldName(field.name)));
 		return repeatedNameProblems(
 			rows.map((row) => row.name),
 			taken
@@ -106,7 +126,7 @@ const fieldsUpload = defineUpload({
 	async importRows(db, farmId, userId, rows) {
 		const result = await importFields(db, farmId, userId, rows);
 		if ('imported' in result) return result;
-		const taken = new Set(result.duplicates.map((name) => name.trim().toLowerCase()));
+		const taken = new Set(result.duplicates.map(foldName));
 		return {
 			problems: repeatedNameProblems(
 				rows.map((row) => row.name),
@@ -161,22 +181,10 @@ const priceSetsUpload = defineUpload({
 	}
 });
 
-/** Each row whose key another row of the file, or an operation of the farm, already has. */
-function repeatedKeyProblems(
-	keys: (string | undefined)[],
-	taken: ReadonlySet<string>
-): CsvProblem[] {
-	const firstRow = new Map<string, number>();
-	return keys.flatMap((key, i) => {
-		if (key === undefined) return [];
-		const earlier = firstRow.get(key);
-		if (earlier === undefined) firstRow.set(key, sheetRow(i));
-		const message = taken.has(key)
-			? operationKeyTakenMessage(key)
-			: earlier !== undefined
-				? `"${key}" is also the key in row ${earlier}: give each operation its own key.`
-				: null;
-		return message ? [{ row: sheetRow(i), column: 'key', message }] : [];
+function repeatedKeyProblems(keys: (string | undefined)[], taken: ReadonlySet<string>) {
+	return repeatedValueProblems(keys, taken, 'key', (key) => key, {
+		taken: operationKeyTakenMessage,
+		again: (key, row) => `"${key}" is also the key in row ${row}: give each operation its own key.`
 	});
 }
 

@@ -15,6 +15,14 @@ import { yearPrices } from './prices';
 
 export type { FarmYearResult } from './farm-year';
 export type { FieldYearResult, NitrogenLedger, OperationResult } from './field-year';
+export { summarisePlan } from './plan-summary';
+export type {
+	CostGroups,
+	FarmNitrogen,
+	FarmYearSummary,
+	FieldSummary,
+	PlanSummary
+} from './plan-summary';
 export type { BudgetLine, BudgetParts, PartialBudget, PartialBudgetYear } from './partial-budget';
 
 export interface PlanResult {

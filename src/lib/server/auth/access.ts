@@ -3,10 +3,11 @@ import { z } from 'zod';
 import type { FarmRole } from '$lib/roles';
 import { db } from '$lib/server/db';
 import { findMembership } from '$lib/server/db/farms';
+import { findPlan } from '$lib/server/db/plans';
 
 /** The one table that says what each farm role may do. */
 export const farmPermissions = {
-	owner: ['farm:view', 'farm:edit', 'plan:edit', 'members:manage'],
+	owner: ['farm:view', 'farm:edit', 'plan:edit', 'plan:delete', 'members:manage'],
 	editor: ['farm:view', 'farm:edit', 'plan:edit'],
 	reviewer: ['farm:view', 'plan:review']
 } as const satisfies Record<FarmRole, readonly string[]>;
@@ -60,4 +61,17 @@ export async function requireFarmAccess(
 		error(403, `A ${membership.role} of this farm may not do this.`);
 	}
 	return { user, farm: membership.farm, role: membership.role };
+}
+
+/** `requireFarmAccess`, then one of the farm's plans: 404 `Plan not found.` for any other id. */
+export async function requirePlanAccess(
+	event: Pick<RequestEvent, 'locals' | 'url'>,
+	farmId: string,
+	planId: string,
+	action: FarmAction
+) {
+	const access = await requireFarmAccess(event, farmId, action);
+	const plan = await findPlan(db, access.farm.id, planId);
+	if (!plan) error(404, 'Plan not found.');
+	return { ...access, plan };
 }

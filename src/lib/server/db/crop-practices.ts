@@ -1,11 +1,10 @@
 import { and, asc, eq, ne } from 'drizzle-orm';
-import { z } from 'zod';
 import { keyFromName } from '$lib/schemas/farm-setup';
 import type { CropPractice, PlanDocument, PlanDocumentInput } from '$lib/schemas/plan-file';
 import type { PracticeBody, PracticeValues } from '$lib/schemas/practices';
 import { insertAuditEntry } from './audit';
 import type { Db, Tx } from './client';
-import { findIdsByKey, type IdsByKey } from './keys';
+import { findIdsByKey, type IdsByKey, isRowId } from './keys';
 import {
 	cropPractices,
 	fieldOperations,
@@ -174,7 +173,7 @@ export async function findPracticeById(
 	farmId: string,
 	practiceId: string
 ): Promise<PracticeRow | undefined> {
-	if (!uuidSchema.safeParse(practiceId).success) return undefined;
+	if (!isRowId(practiceId)) return undefined;
 	const row = await db.query.cropPractices.findFirst({
 		where: and(eq(cropPractices.farmId, farmId), eq(cropPractices.id, practiceId)),
 		with: withOperationKeys
@@ -359,8 +358,6 @@ export async function deletePractice(
 		return { deleted: true };
 	});
 }
-
-const uuidSchema = z.uuid();
 
 /** The row ids of all the farm's practices by plan-file key, for resolving a rotation's years. */
 export async function listPracticeIdsByKey(db: Db | Tx, farmId: string): Promise<IdsByKey> {

@@ -1,11 +1,10 @@
 import { and, asc, eq, ne } from 'drizzle-orm';
-import { z } from 'zod';
 import { keyFromName } from '$lib/schemas/farm-setup';
 import type { OperationBody } from '$lib/schemas/operations';
 import type { PlanDocument, PlanDocumentInput } from '$lib/schemas/plan-file';
 import { insertAuditEntry } from './audit';
 import type { Db, Tx } from './client';
-import { findIdsByKey, type IdsByKey } from './keys';
+import { findIdsByKey, type IdsByKey, isRowId } from './keys';
 import { cropPractices, fieldOperations, practiceOperations } from './schema';
 
 type FieldOperationInput = NonNullable<PlanDocumentInput['operations']>[number];
@@ -178,7 +177,7 @@ export async function findFieldOperationById(
 	farmId: string,
 	operationId: string
 ): Promise<OperationRow | undefined> {
-	if (!uuidSchema.safeParse(operationId).success) return undefined;
+	if (!isRowId(operationId)) return undefined;
 	const row = await db.query.fieldOperations.findFirst({
 		where: and(eq(fieldOperations.farmId, farmId), eq(fieldOperations.id, operationId))
 	});
@@ -307,5 +306,3 @@ async function insertAuditEntries(
 		});
 	}
 }
-
-const uuidSchema = z.uuid();

@@ -1,11 +1,10 @@
 import { and, asc, eq, ne } from 'drizzle-orm';
-import { z } from 'zod';
 import { keyFromName, type FieldBody } from '$lib/schemas/farm-setup';
 import type { PlanDocument } from '$lib/schemas/plan-file';
 import { duplicateNames } from '../csv-upload';
 import { insertAuditEntry } from './audit';
 import type { Db, Tx } from './client';
-import { findIdsByKey, type IdsByKey } from './keys';
+import { findIdsByKey, type IdsByKey, isRowId } from './keys';
 import { farms, fields, planFieldAssignments, plans, planVersions } from './schema';
 
 /** Adds the fields the farm does not have yet (by plan-file id); the row ids of all of them. */
@@ -77,7 +76,7 @@ export async function findFieldById(
 	farmId: string,
 	fieldId: string
 ): Promise<FieldRow | undefined> {
-	if (!uuidSchema.safeParse(fieldId).success) return undefined;
+	if (!isRowId(fieldId)) return undefined;
 	return db.query.fields.findFirst({
 		columns: fieldColumns,
 		where: and(eq(fields.farmId, farmId), eq(fields.id, fieldId))
@@ -242,5 +241,3 @@ const fieldReturning = {
 	cashRentUsdPerAcre: fields.cashRentUsdPerAcre,
 	notes: fields.notes
 };
-
-const uuidSchema = z.uuid();

@@ -1,4 +1,5 @@
 import { and, eq, inArray } from 'drizzle-orm';
+import { z } from 'zod';
 import type { Db, Tx } from './client';
 import type { cropPractices, fieldOperations, fields, rotations } from './schema';
 
@@ -17,4 +18,11 @@ export async function findIdsByKey(
 		.from(table)
 		.where(and(eq(table.farmId, farmId), inArray(table.key, keys)));
 	return new Map(rows.map((row) => [row.key, row.id]));
+}
+
+const rowIdSchema = z.uuid();
+
+/** Whether an id from a URL or body can be a row id at all: anything else is "not found", not a crash. */
+export function isRowId(id: string): boolean {
+	return rowIdSchema.safeParse(id).success;
 }

@@ -1,5 +1,4 @@
 import { and, asc, eq, ne } from 'drizzle-orm';
-import { z } from 'zod';
 import { keyFromName } from '$lib/schemas/farm-setup';
 import type { PersonBody } from '$lib/schemas/people';
 import { familyHoursByMonth, type Person } from '$lib/schemas/plan-file';
@@ -7,6 +6,7 @@ import { isFamilyLabour } from '$lib/farm-lists';
 import { farmSchema } from '$lib/schemas/farm';
 import { insertAuditEntry } from './audit';
 import type { Db, Tx } from './client';
+import { isRowId } from './keys';
 import { farms, people } from './schema';
 
 /** A person as the API and the people page give them: the row id, the plan-file id as `key`, the rest. */
@@ -47,7 +47,7 @@ export async function findPersonById(
 	farmId: string,
 	personId: string
 ): Promise<PersonRow | undefined> {
-	if (!uuidSchema.safeParse(personId).success) return undefined;
+	if (!isRowId(personId)) return undefined;
 	return db.query.people.findFirst({
 		columns: personColumns,
 		where: and(eq(people.farmId, farmId), eq(people.id, personId))
@@ -226,5 +226,3 @@ export async function exportPeople(db: Db | Tx, farmId: string): Promise<Person[
 	const rows = await listPeople(db, farmId);
 	return rows.map(({ id: _id, key, ...person }) => ({ id: key, ...person }));
 }
-
-const uuidSchema = z.uuid();

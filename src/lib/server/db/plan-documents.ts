@@ -1,3 +1,5 @@
+import { eq } from 'drizzle-orm';
+import type { PlanDraft } from '$lib/schemas/plans';
 import {
 	currentFormatVersion,
 	type PlanDocument,
@@ -9,12 +11,13 @@ import { exportCropPractices, insertCropPractices } from './crop-practices';
 import { exportCrops, insertCrops } from './crops';
 import { farmSettingsOf } from './farms';
 import { exportFieldOperations, insertFieldOperations } from './field-operations';
-import { insertFields } from './fields';
+import { insertFields, listFields } from './fields';
 import { insertHerd } from './herds';
 import { exportPeople, insertPeople } from './people';
-import { findPlanWithCurrentVersion, insertPlan } from './plans';
+import { findPlanVersion, insertPlan } from './plans';
 import { exportPriceSets, insertPriceSets } from './price-sets';
 import { exportRotations, insertRotations } from './rotations';
+import { plans, type farms } from './schema';
 
 /**
  * Saves a validated plan document into a farm: its crops, fields, people, herd, prices, operations,
@@ -65,59 +68,94 @@ export async function importPlanDocument(
 }
 
 /**
- * The plan file of a plan's current version: the farm with its people, operations, practices and rotations,
- * the fields the plan assigns, and the prices of the plan's years. Parse it with `parsePlanDocument`.
+ * The plan file of a draft on a farm: the farm with its crops, people, operations, practices and
+ * rotations, the fields the draft assigns (a key the farm does not have is left out, so parsing names it)
+ * and the prices of the draft's years. Parse it with `parsePlanDocument`.
  */
-export async function exportPlanDocument(db: Db | Tx, planId: string): Promise<PlanDocumentInput> {
-	const plan = await findPlanWithCurrentVersion(db, planId);
-	if (!plan) throw new Error(`No plan ${planId}`);
-	const { farm, version } = plan;
-	if (!version) throw new Error(`Plan ${planId} has no version ${plan.currentVersion}`);
-	const assignments = [...version.assignments].sort((a, b) =>
-		a.field.key.localeCompare(b.field.key)
+export async function draftPlanDocument(
+	db: Db | Tx,
+	farm: typeof farms.$inferSelect,
+	draft: PlanDraft
+): Promise<PlanDocumentInput> {
+	const { startYear, years } = draft.plan.horizon;
+	const planYears = Array.from({ length: years }, (_, i) => startYear + i);
+	const [crops, fieldRows, people, operations, practices, rotations, priceSets] = await Promise.all(
+		[
+			exportCrops(db, farm.id),
+			listFields(db, farm.id),
+			exportPeople(db, farm.id),
+			exportFieldOperations(db, farm.id),
+			exportCropPractices(db, farm.id),
+			exportRotations(db, farm.id),
+			exportPriceSets(db, farm.id, planYears)
+		]
 	);
-	const years = Array.from({ length: version.years }, (_, i) => version.startYear + i);
-	const [crops, people, operations, practices, rotations, priceSets] = await Promise.all([
-		exportCrops(db, farm.id),
-		exportPeople(db, farm.id),
-		exportFieldOperations(db, farm.id),
-		exportCropPractices(db, farm.id),
-		exportRotations(db, farm.id),
-		exportPriceSets(db, farm.id, years)
-	]);
-
+	const fieldByKey = new Map(fieldRows.map((field) => [field.key, field]));
 	const { id: _farmId, ...settings } = farmSettingsOf(farm);
 	return {
 		formatVersion: currentFormatVersion,
-		notes: version.notes,
+		notes: draft.notes,
 		farm: settings,
 		crops,
-		fields: assignments.map(({ field }) => ({
-			id: field.key,
-			name: field.name,
-			acres: field.acres,
-			productivityIndex: field.productivityIndex,
-			priorCrop: field.priorCrop,
-			priorCropNitrogenCreditLbPerAcre: field.priorCropNitrogenCreditLbPerAcre,
-			tenure: field.tenure,
-			cashRentUsdPerAcre: field.cashRentUsdPerAcre,
-			notes: field.notes
-		})),
+		fields: draft.plan.fieldRotations.flatMap(({ fieldId }) => {
+			const field = fieldByKey.get(fieldId);
+			if (!field) return [];
+			return [
+				{
+					id: field.key,
+					name: field.name,
+					acres: field.acres,
+					productivityIndex: field.productivityIndex,
+					priorCrop: field.priorCrop,
+					priorCropNitrogenCreditLbPerAcre: field.priorCropNitrogenCreditLbPerAcre,
+					tenure: field.tenure,
+					cashRentUsdPerAcre: field.cashRentUsdPerAcre,
+					notes: field.notes
+				}
+			];
+		}),
 		people,
-		herd: version.herd,
+		herd: draft.herd,
 		operations,
 		practices,
 		rotations,
 		priceSets,
-		plan: {
-			name: plan.name,
-			horizon: { startYear: version.startYear, years: version.years },
-			fieldRotations: assignments.map((a) => ({
-				fieldId: a.field.key,
-				rotationId: a.rotation.key,
-				startingPhase: a.startingPhase
-			})),
-			assumptions: version.assumptions
-		}
+		plan: draft.plan
 	};
+}
+
+/** A stored version as the draft the editor and the plans API work with. */
+export function draftOfVersion(
+	name: string,
+	version: NonNullable<Awaited<ReturnType<typeof findPlanVersion>>>
+): PlanDraft {
+	return {
+		plan: {
+			name,
+			horizon: { startYear: version.startYear, years: version.years },
+			fieldRotations: version.fieldRotations,
+			assumptions: version.assumptions
+		},
+		herd: version.herd ?? null,
+		notes: version.notes
+	};
+}
+
+/**
+ * The plan file of a plan's version (the current one unless `version` is given): see
+ * `draftPlanDocument`. Parse it with `parsePlanDocument`.
+ */
+export async function exportPlanDocument(
+	db: Db | Tx,
+	planId: string,
+	version?: number
+): Promise<PlanDocumentInput> {
+	const plan = await db.query.plans.findFirst({
+		where: eq(plans.id, planId),
+		with: { farm: true }
+	});
+	if (!plan) throw new Error(`No plan ${planId}`);
+	const stored = await findPlanVersion(db, planId, version ?? plan.currentVersion);
+	if (!stored) throw new Error(`Plan ${planId} has no version ${version ?? plan.currentVersion}`);
+	return draftPlanDocument(db, plan.farm, draftOfVersion(plan.name, stored));
 }

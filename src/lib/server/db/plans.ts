@@ -1,7 +1,9 @@
-import { asc, eq } from 'drizzle-orm';
+import { and, asc, desc, eq, sql } from 'drizzle-orm';
 import type { Herd } from '$lib/schemas/plan-file';
+import { insertAuditEntry } from './audit';
 import type { Db, Tx } from './client';
-import { planFieldAssignments, plans, planVersions } from './schema';
+import { isRowId } from './keys';
+import { planFieldAssignments, plans, planVersions, users } from './schema';
 
 /** A new plan as version 1: its horizon, the herd it runs, and a rotation for each field (row ids). */
 export interface NewPlan {
@@ -51,23 +53,6 @@ export async function insertPlan(db: Db | Tx, plan: NewPlan) {
 	});
 }
 
-/**
- * A plan with its farm and its current version, the version's fields and rotations assigned;
- * undefined when there is no such plan. `version` is undefined when the current one is missing.
- */
-export async function findPlanWithCurrentVersion(db: Db | Tx, planId: string) {
-	const plan = await db.query.plans.findFirst({
-		where: eq(plans.id, planId),
-		with: {
-			farm: true,
-			versions: { with: { assignments: { with: { field: true, rotation: true } } } }
-		}
-	});
-	if (!plan) return undefined;
-	const { versions, ...rest } = plan;
-	return { ...rest, version: versions.find((v) => v.version === plan.currentVersion) };
-}
-
 /** The farm's plans by name, with the current version's horizon. */
 export async function listPlansByFarm(db: Db | Tx, farmId: string) {
 	const rows = await db.query.plans.findMany({
@@ -79,5 +64,246 @@ export async function listPlansByFarm(db: Db | Tx, farmId: string) {
 	return rows.map(({ versions, ...plan }) => {
 		const current = versions.find((v) => v.version === plan.currentVersion);
 		return { ...plan, startYear: current?.startYear, years: current?.years };
+	});
+}
+
+/** What a version holds: its horizon, assumptions, herd, notes and each field's rotation (row ids). */
+export interface PlanVersionContent {
+	startYear: number;
+	years: number;
+	assumptions: string[];
+	herd: Herd | null;
+	notes: string;
+	fieldRotations: { fieldId: string; rotationId: string; startingPhase: number }[];
+}
+
+/** The farm's plan by id; undefined for another farm's plan or an id that is not a UUID. */
+export async function findPlan(db: Db | Tx, farmId: string, planId: string) {
+	if (!isRowId(planId)) return undefined;
+	return db.query.plans.findFirst({ where: and(eq(plans.id, planId), eq(plans.farmId, farmId)) });
+}
+
+export type PlanRow = NonNullable<Awaited<ReturnType<typeof findPlan>>>;
+
+/** One version of a plan with its fields' rotations by plan-file key; undefined when there is none. */
+export async function findPlanVersion(db: Db | Tx, planId: string, version: number) {
+	const row = await db.query.planVersions.findFirst({
+		where: and(eq(planVersions.planId, planId), eq(planVersions.version, version)),
+		with: {
+			assignments: {
+				with: {
+					field: { columns: { key: true, name: true } },
+					rotation: { columns: { key: true } }
+				}
+			}
+		}
+	});
+	if (!row) return undefined;
+	const { assignments, ...rest } = row;
+	return {
+		...rest,
+		fieldRotations: assignments
+			.map((a) => ({
+				fieldId: a.field.key,
+				rotationId: a.rotation.key,
+				startingPhase: a.startingPhase
+			}))
+			.sort((a, b) => a.fieldId.localeCompare(b.fieldId))
+	};
+}
+
+/** Every version of a plan, newest first, with who saved it, when and what they said. */
+export async function listPlanVersions(db: Db | Tx, planId: string) {
+	const rows = await db
+		.select({
+			version: planVersions.version,
+			savedAt: planVersions.createdAt,
+			changeNote: planVersions.changeNote,
+			restoredFromVersion: planVersions.restoredFromVersion,
+			startYear: planVersions.startYear,
+			years: planVersions.years,
+			savedByName: users.name,
+			savedByEmail: users.email
+		})
+		.from(planVersions)
+		.leftJoin(users, eq(users.id, planVersions.savedById))
+		.where(eq(planVersions.planId, planId))
+		.orderBy(desc(planVersions.version));
+	return rows.map(({ savedByName, savedByEmail, ...row }) => ({
+		...row,
+		savedBy: savedByName ?? savedByEmail ?? 'a removed account'
+	}));
+}
+
+async function insertVersion(
+	tx: Tx,
+	planId: string,
+	version: number,
+	userId: string | null,
+	content: PlanVersionContent,
+	extra: { changeNote: string; restoredFromVersion?: number }
+) {
+	const { fieldRotations, ...columns } = content;
+	const [row] = await tx
+		.insert(planVersions)
+		.values({ planId, version, savedById: userId, ...columns, ...extra })
+		.returning({ id: planVersions.id });
+	if (fieldRotations.length) {
+		await tx
+			.insert(planFieldAssignments)
+			.values(fieldRotations.map((a) => ({ ...a, planVersionId: row.id })));
+	}
+	return row.id;
+}
+
+export type SaveOutcome =
+	{ saved: true; version: number } | { saved: false; currentVersion: number };
+
+/**
+ * Saves a new version of a plan edited from `baseVersion`. The plan row's version moves on only when it
+ * still is `baseVersion` (the update waits for a concurrent save and then sees its number), so of two
+ * saves from the same version exactly one wins; the other changes nothing and learns the newest version.
+ */
+export async function savePlanVersion(
+	db: Db | Tx,
+	save: {
+		farmId: string;
+		planId: string;
+		userId: string | null;
+		baseVersion: number;
+		name: string;
+		content: PlanVersionContent;
+		changeNote: string;
+		restoredFromVersion?: number;
+	}
+): Promise<SaveOutcome> {
+	return db.transaction(async (tx) => {
+		const [moved] = await tx
+			.update(plans)
+			.set({
+				currentVersion: sql`${plans.currentVersion} + 1`,
+				name: save.name,
+				updatedAt: new Date()
+			})
+			.where(
+				and(
+					eq(plans.id, save.planId),
+					eq(plans.farmId, save.farmId),
+					eq(plans.currentVersion, save.baseVersion)
+				)
+			)
+			.returning({ version: plans.currentVersion });
+		if (!moved) {
+			const current = await findPlan(tx, save.farmId, save.planId);
+			return { saved: false, currentVersion: current?.currentVersion ?? 0 };
+		}
+		await insertVersion(tx, save.planId, moved.version, save.userId, save.content, {
+			changeNote: save.changeNote,
+			restoredFromVersion: save.restoredFromVersion
+		});
+		await insertAuditEntry(tx, {
+			farmId: save.farmId,
+			userId: save.userId,
+			action: 'plan.saved',
+			detail: { planId: save.planId, name: save.name, version: moved.version }
+		});
+		return { saved: true, version: moved.version };
+	});
+}
+
+/** A new plan as version 1 from a plan's content (a copy, or a plan made in the editor). */
+export async function createPlan(
+	db: Db | Tx,
+	plan: {
+		farmId: string;
+		userId: string | null;
+		name: string;
+		content: PlanVersionContent;
+		changeNote: string;
+	}
+) {
+	return db.transaction(async (tx) => {
+		const [row] = await tx
+			.insert(plans)
+			.values({ farmId: plan.farmId, name: plan.name, createdById: plan.userId })
+			.returning({ id: plans.id });
+		await insertVersion(tx, row.id, 1, plan.userId, plan.content, { changeNote: plan.changeNote });
+		await insertAuditEntry(tx, {
+			farmId: plan.farmId,
+			userId: plan.userId,
+			action: 'plan.created',
+			detail: { planId: row.id, name: plan.name }
+		});
+		return { planId: row.id, version: 1 };
+	});
+}
+
+/** A version's content with row ids, to copy or restore it. */
+export async function findVersionContent(
+	db: Db | Tx,
+	planId: string,
+	version: number
+): Promise<PlanVersionContent | undefined> {
+	const row = await db.query.planVersions.findFirst({
+		where: and(eq(planVersions.planId, planId), eq(planVersions.version, version)),
+		with: { assignments: true }
+	});
+	if (!row) return undefined;
+	return {
+		startYear: row.startYear,
+		years: row.years,
+		assumptions: row.assumptions,
+		herd: row.herd ?? null,
+		notes: row.notes,
+		fieldRotations: row.assignments.map(({ fieldId, rotationId, startingPhase }) => ({
+			fieldId,
+			rotationId,
+			startingPhase
+		}))
+	};
+}
+
+/** Deletes a plan with its versions and reviews; the farm's reference plan stays until another is made. */
+export async function deletePlan(db: Db | Tx, farmId: string, userId: string, plan: PlanRow) {
+	await db.transaction(async (tx) => {
+		await tx.delete(plans).where(and(eq(plans.id, plan.id), eq(plans.farmId, farmId)));
+		await insertAuditEntry(tx, {
+			farmId,
+			userId,
+			action: 'plan.deleted',
+			detail: { planId: plan.id, name: plan.name }
+		});
+	});
+}
+
+/** Makes a plan the farm's one reference plan (the one every partial budget is against by default). */
+export async function makeReferencePlan(
+	db: Db | Tx,
+	farmId: string,
+	userId: string,
+	plan: PlanRow
+) {
+	await db.transaction(async (tx) => {
+		await tx
+			.update(plans)
+			.set({ isReference: false })
+			.where(and(eq(plans.farmId, farmId), eq(plans.isReference, true)));
+		await tx
+			.update(plans)
+			.set({ isReference: true })
+			.where(and(eq(plans.id, plan.id), eq(plans.farmId, farmId)));
+		await insertAuditEntry(tx, {
+			farmId,
+			userId,
+			action: 'plan.made-reference',
+			detail: { planId: plan.id, name: plan.name }
+		});
+	});
+}
+
+/** The farm's reference plan, when it has one. */
+export async function findReferencePlan(db: Db | Tx, farmId: string) {
+	return db.query.plans.findFirst({
+		where: and(eq(plans.farmId, farmId), eq(plans.isReference, true))
 	});
 }

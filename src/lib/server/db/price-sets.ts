@@ -1,9 +1,9 @@
 import { and, asc, eq, gt, inArray, lte, ne, sql } from 'drizzle-orm';
-import { z } from 'zod';
 import type { PlanDocument, PlanDocumentInput } from '$lib/schemas/plan-file';
 import type { PriceSet } from '$lib/schemas/price-sets';
 import { insertAuditEntry } from './audit';
 import type { Db, Tx } from './client';
+import { isRowId } from './keys';
 import {
 	cropPractices,
 	fieldOperations,
@@ -89,7 +89,7 @@ export async function findPriceSetById(
 	farmId: string,
 	priceSetId: string
 ): Promise<PriceSetRow | undefined> {
-	if (!uuidSchema.safeParse(priceSetId).success) return undefined;
+	if (!isRowId(priceSetId)) return undefined;
 	const [set] = await listPriceSets(db, farmId, [priceSetId]);
 	return set;
 }
@@ -337,5 +337,3 @@ function priceSetOf(
 		)
 	};
 }
-
-const uuidSchema = z.uuid();

@@ -1,10 +1,9 @@
 import { and, asc, eq, ne } from 'drizzle-orm';
-import { z } from 'zod';
 import { keyFromName } from '$lib/schemas/farm-setup';
 import type { PlanDocument, PlanDocumentInput } from '$lib/schemas/plan-file';
 import { insertAuditEntry } from './audit';
 import type { Db, Tx } from './client';
-import { findIdsByKey, type IdsByKey } from './keys';
+import { findIdsByKey, type IdsByKey, isRowId } from './keys';
 import { planFieldAssignments, plans, planVersions, rotations, rotationSteps } from './schema';
 
 type RotationInput = PlanDocumentInput['rotations'][number];
@@ -132,7 +131,7 @@ export async function findRotationById(
 	farmId: string,
 	rotationId: string
 ): Promise<RotationRow | undefined> {
-	if (!uuidSchema.safeParse(rotationId).success) return undefined;
+	if (!isRowId(rotationId)) return undefined;
 	const row = await db.query.rotations.findFirst({
 		...rotationWith,
 		where: and(eq(rotations.farmId, farmId), eq(rotations.id, rotationId))
@@ -258,5 +257,3 @@ export async function deleteRotation(
 		return { deleted: true };
 	});
 }
-
-const uuidSchema = z.uuid();

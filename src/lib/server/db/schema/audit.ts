@@ -8,6 +8,10 @@ export interface AuditDetails {
 	'farm.created': Record<string, never>;
 	'farm.updated': Record<string, never>;
 	'plan.imported': { planId: string; name: string };
+	'plan.created': { planId: string; name: string };
+	'plan.saved': { planId: string; name: string; version: number };
+	'plan.deleted': { planId: string; name: string };
+	'plan.made-reference': { planId: string; name: string };
 	'field.created': { fieldId: string; name: string };
 	'field.updated': { fieldId: string; name: string };
 	'field.deleted': { fieldId: string; name: string };

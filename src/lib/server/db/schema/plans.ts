@@ -66,6 +66,10 @@ export const planVersions = pgTable(
 		 */
 		herd: jsonb().$type<Herd>(),
 		notes: text().notNull().default(''),
+		/** What the person who saved this version said about it ("Lower N on the east fields"). */
+		changeNote: text().notNull().default(''),
+		/** The version this one restored, when it was made by restoring an older one. */
+		restoredFromVersion: integer(),
 		savedById: uuid().references(() => users.id, { onDelete: 'set null' }),
 		createdAt: timestamp({ withTimezone: true }).notNull().defaultNow()
 	},

@@ -1,0 +1,124 @@
+// What the plans API and the plan pages share: a draft checked as the plan file it makes on its farm,
+// turned into a version's rows, and evaluated (with a partial budget against another plan).
+import { json } from '@sveltejs/kit';
+import {
+	evaluatePlan,
+	NonFiniteResultError,
+	referenceHorizonIssues,
+	summarisePlan,
+	type PlanResult,
+	type PlanSummary
+} from '$lib/engine';
+import type { FieldIssue } from '$lib/schemas/issues';
+import { parsePlanDocument, type PlanDocument } from '$lib/schemas/plan-file';
+import type { PlanDraft } from '$lib/schemas/plans';
+import type { Db, Tx } from '$lib/server/db/client';
+import { findIdsByKey } from '$lib/server/db/keys';
+import { draftOfVersion, draftPlanDocument } from '$lib/server/db/plan-documents';
+import { findPlanVersion, type PlanRow, type PlanVersionContent } from '$lib/server/db/plans';
+import { fields, rotations, type farms } from '$lib/server/db/schema';
+
+type Farm = typeof farms.$inferSelect;
+type Checked = { ok: true; document: PlanDocument } | { ok: false; issues: FieldIssue[] };
+
+/**
+ * A draft as the plan file it makes with the farm's data, validated. Issue paths name the draft's own
+ * values (`plan.fieldRotations.2.rotationId`, `herd.head`) or the farm's part that is missing
+ * (`priceSets`: no prices for a plan year).
+ */
+export async function checkDraft(db: Db | Tx, farm: Farm, draft: PlanDraft): Promise<Checked> {
+	const parsed = parsePlanDocument(await draftPlanDocument(db, farm, draft));
+	return parsed.ok ? { ok: true, document: parsed.plan } : parsed;
+}
+
+/** A checked draft as a version's rows: fields and rotations by row id. */
+export async function versionContent(
+	db: Db | Tx,
+	farmId: string,
+	draft: PlanDraft
+): Promise<PlanVersionContent> {
+	const { fieldRotations, horizon, assumptions } = draft.plan;
+	const [fieldIds, rotationIds] = await Promise.all([
+		findIdsByKey(
+			db,
+			fields,
+			farmId,
+			fieldRotations.map((a) => a.fieldId)
+		),
+		findIdsByKey(
+			db,
+			rotations,
+			farmId,
+			fieldRotations.map((a) => a.rotationId)
+		)
+	]);
+	return {
+		startYear: horizon.startYear,
+		years: horizon.years,
+		assumptions,
+		herd: draft.herd,
+		notes: draft.notes,
+		fieldRotations: fieldRotations.map((a) => ({
+			fieldId: fieldIds.get(a.fieldId)!,
+			rotationId: rotationIds.get(a.rotationId)!,
+			startingPhase: a.startingPhase
+		}))
+	};
+}
+
+/** A plan's version as a draft; undefined when the plan has no such version. */
+export async function findDraft(db: Db | Tx, plan: PlanRow, version = plan.currentVersion) {
+	const stored = await findPlanVersion(db, plan.id, version);
+	return stored && draftOfVersion(plan.name, stored);
+}
+
+export type ResultsAnswer =
+	{ ok: true; result: PlanResult | PlanSummary } | { ok: false; response: Response };
+
+function refused(message: string, issues: FieldIssue[]) {
+	return { ok: false as const, response: json({ message, issues }, { status: 422 }) };
+}
+
+/**
+ * The engine's results for a draft: the summary the editor shows, or every field-year with `full`;
+ * with `against`, the partial budget of the draft against that plan. A draft that does not make a valid
+ * plan, a plan to compare with that does not cover the draft's years, or a result that would not be a
+ * finite number: 422 naming each problem.
+ */
+export async function draftResults(
+	db: Db | Tx,
+	farm: Farm,
+	draft: PlanDraft,
+	{ against, detail }: { against?: PlanDraft; detail: 'summary' | 'full' }
+): Promise<ResultsAnswer> {
+	const [plan, reference] = await Promise.all([
+		checkDraft(db, farm, draft),
+		against ? checkDraft(db, farm, against) : undefined
+	]);
+	if (!plan.ok) return refused('The plan is not valid.', plan.issues);
+	if (reference && !reference.ok) {
+		return refused(
+			`The plan to compare with, "${against!.plan.name}", is not valid.`,
+			reference.issues.map((issue) => ({ ...issue, path: `against.${issue.path}` }))
+		);
+	}
+	if (reference) {
+		const mismatch = referenceHorizonIssues(plan.document, reference.document);
+		if (mismatch.length) return refused('The plans cover different years.', mismatch);
+	}
+	try {
+		const result = evaluatePlan(plan.document, reference?.document);
+		return { ok: true, result: detail === 'full' ? result : summarisePlan(result) };
+	} catch (error) {
+		if (!(error instanceof NonFiniteResultError)) throw error;
+		return refused('The plan gives a result that is not a number.', error.issues);
+	}
+}
+
+export function versionConflictMessage(baseVersion: number, currentVersion: number) {
+	return `This plan was saved again (version ${currentVersion}) after you opened version ${baseVersion}: nothing of yours was saved. Open the newest version to see what changed, then make your changes again.`;
+}
+
+export function referencePlanDeleteMessage(name: string) {
+	return `"${name}" is the farm's reference plan: make another plan the reference before deleting it.`;
+}

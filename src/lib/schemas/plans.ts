@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { amount, text } from './messages';
+import { amount, id, text } from './messages';
 import { herdSchema, planSchema } from './plan-file';
 
 /**
@@ -41,5 +41,12 @@ export const resultDetails = ['summary', 'full'] as const;
 export const resultsQuerySchema = z.strictObject({
 	version: z.coerce.number().pipe(version('the version')).optional(),
 	against: z.uuid({ error: 'Name the plan to compare against by its id.' }).optional(),
-	detail: z.enum(resultDetails, { error: 'The detail is "summary" or "full".' }).default('summary')
+	detail: z.enum(resultDetails, { error: 'The detail is "summary" or "full".' }).default('summary'),
+	/** With `full`: only this field's field-years (its plan-file key), and with `year` only that year. */
+	field: id('the field').optional(),
+	year: z.coerce
+		.number()
+		.pipe(amount('the year', { min: 1900, max: 2200, integer: true }))
+		.optional()
 });
+export type ResultsQuery = z.output<typeof resultsQuerySchema>;

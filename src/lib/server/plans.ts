@@ -11,7 +11,7 @@ import {
 } from '$lib/engine';
 import type { FieldIssue } from '$lib/schemas/issues';
 import { parsePlanDocument, type PlanDocument } from '$lib/schemas/plan-file';
-import type { PlanDraft } from '$lib/schemas/plans';
+import type { PlanDraft, ResultsQuery } from '$lib/schemas/plans';
 import type { Db, Tx } from '$lib/server/db/client';
 import { findIdsByKey } from '$lib/server/db/keys';
 import { draftOfVersion, draftPlanDocument } from '$lib/server/db/plan-documents';
@@ -80,7 +80,8 @@ function refused(message: string, issues: FieldIssue[]) {
 }
 
 /**
- * The engine's results for a draft: the summary the editor shows, or every field-year with `full`;
+ * The engine's results for a draft: the summary the editor shows, or every field-year with `full`
+ * (only one field's, or one field-year, with `field` and `year`);
  * with `against`, the partial budget of the draft against that plan. A draft that does not make a valid
  * plan, a plan to compare with that does not cover the draft's years, or a result that would not be a
  * finite number: 422 naming each problem.
@@ -89,7 +90,12 @@ export async function draftResults(
 	db: Db | Tx,
 	farm: Farm,
 	draft: PlanDraft,
-	{ against, detail }: { against?: PlanDraft; detail: 'summary' | 'full' }
+	{
+		against,
+		detail,
+		field,
+		year
+	}: { against?: PlanDraft } & Pick<ResultsQuery, 'detail' | 'field' | 'year'>
 ): Promise<ResultsAnswer> {
 	const [plan, reference] = await Promise.all([
 		checkDraft(db, farm, draft),
@@ -108,7 +114,12 @@ export async function draftResults(
 	}
 	try {
 		const result = evaluatePlan(plan.document, reference?.document);
-		return { ok: true, result: detail === 'full' ? result : summarisePlan(result) };
+		if (detail === 'summary') return { ok: true, result: summarisePlan(result) };
+		const fieldYears = result.fieldYears.filter(
+			(fy) =>
+				(field === undefined || fy.fieldId === field) && (year === undefined || fy.year === year)
+		);
+		return { ok: true, result: { ...result, fieldYears } };
 	} catch (error) {
 		if (!(error instanceof NonFiniteResultError)) throw error;
 		return refused('The plan gives a result that is not a number.', error.issues);

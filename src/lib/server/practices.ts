@@ -14,7 +14,7 @@ import {
 	type RotationBody,
 	type RotationForm
 } from '$lib/schemas/practices';
-import type { PracticeToSave } from '$lib/server/db/crop-practices';
+import type { PracticeRow, PracticeToSave } from '$lib/server/db/crop-practices';
 import { listOperationChoices, listPractices } from '$lib/server/db/crop-practices';
 import { listCropsWithBuiltIns } from '$lib/server/db/crops';
 import type { Db, Tx } from '$lib/server/db/client';
@@ -165,6 +165,33 @@ export async function loadPracticeFormChoices(db: Db | Tx, farmId: string) {
 }
 
 /** The practices a rotation's years may be, by name, with their crop's name for the choice's label. */
+/** One year of a rotation as the rotation strip and the plan grid show it. */
+export interface RotationYear {
+	practiceKey: string;
+	practiceName: string;
+	cropId: string;
+	cropName: string;
+	cover: boolean;
+	coverGrazed: boolean;
+	residueGrazed: boolean;
+}
+
+/** A practice's crop name and the marks its cell carries (a cover, grazed cover, grazed residue). */
+export function rotationYear(
+	practice: Pick<PracticeRow, 'key' | 'name' | 'crop' | 'coverMix' | 'residueGrazing'>,
+	cropById: Map<string, CropDefinition>
+): RotationYear {
+	return {
+		practiceKey: practice.key,
+		practiceName: practice.name,
+		cropId: practice.crop,
+		cropName: cropById.get(practice.crop)?.name ?? practice.crop,
+		cover: practice.coverMix !== null,
+		coverGrazed: (practice.coverMix?.grazingUtilisationPercent ?? 0) > 0,
+		residueGrazed: (practice.residueGrazing?.utilisationPercent ?? 0) > 0
+	};
+}
+
 export async function loadRotationChoices(db: Db | Tx, farmId: string) {
 	const [practices, crops] = await Promise.all([
 		listPractices(db, farmId),

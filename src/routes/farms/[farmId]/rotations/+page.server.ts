@@ -7,7 +7,11 @@ import { requireFarmAccess, roleAllows } from '$lib/server/auth/access';
 import { db } from '$lib/server/db';
 import { listPracticeIdsByKey } from '$lib/server/db/crop-practices';
 import { chooseRotationKey, insertRotation, listRotations } from '$lib/server/db/rotations';
-import { loadRotationChoices, rotationFromFormOrErrors } from '$lib/server/practices';
+import {
+	loadRotationChoices,
+	rotationFromFormOrErrors,
+	rotationYear
+} from '$lib/server/practices';
 import type { Actions, PageServerLoad } from './$types';
 
 const rotationForm = zod4(rotationFormSchema);
@@ -45,14 +49,7 @@ export const load = (async (event) => {
 			return {
 				id: rotation.id,
 				name: rotation.name,
-				years: years.map(({ practice, crop }) => ({
-					practiceName: practice.name,
-					cropId: crop.id,
-					cropName: crop.name,
-					cover: practice.coverMix !== null,
-					coverGrazed: (practice.coverMix?.grazingUtilisationPercent ?? 0) > 0,
-					residueGrazed: (practice.residueGrazing?.utilisationPercent ?? 0) > 0
-				})),
+				years: years.map(({ practice }) => rotationYear(practice, cropById)),
 				warnings: checkRotation(
 					years.map(({ practice, crop }) => ({
 						practiceName: practice.name,

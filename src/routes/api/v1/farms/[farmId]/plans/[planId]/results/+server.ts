@@ -9,7 +9,8 @@ import type { RequestHandler } from './$types';
 
 /**
  * The engine's results for the plan's newest version, or `?version=`; `?against=<plan id>` adds the
- * partial budget against that plan's newest version; `?detail=summary` (the default) or `full`.
+ * partial budget against that plan's newest version; `?detail=summary` (the default) or `full`, which
+ * `?field=<field key>` and `?year=` narrow to one field's or one field-year's detail.
  */
 export const GET: RequestHandler = async (event) => {
 	const { farm, plan } = await requirePlanAccess(
@@ -23,8 +24,8 @@ export const GET: RequestHandler = async (event) => {
 	const draft = await findDraft(db, plan, query.data.version);
 	if (!draft) error(404, 'Plan version not found.');
 	const answer = await draftResults(db, farm, draft, {
-		against: await againstDraft(farm.id, query.data.against),
-		detail: query.data.detail
+		...query.data,
+		against: await againstDraft(farm.id, query.data.against)
 	});
 	return answer.ok ? json(answer.result) : answer.response;
 };
@@ -49,8 +50,8 @@ export const POST: RequestHandler = async (event) => {
 	const parsed = planDraftSchema.safeParse(body.body);
 	if (!parsed.success) return invalidInput(parsed.error);
 	const answer = await draftResults(db, farm, parsed.data, {
-		against: await againstDraft(farm.id, query.data.against),
-		detail: query.data.detail
+		...query.data,
+		against: await againstDraft(farm.id, query.data.against)
 	});
 	return answer.ok ? json(answer.result) : answer.response;
 };

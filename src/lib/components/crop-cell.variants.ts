@@ -1,4 +1,4 @@
-/** A colour per kind of crop for the rotation strip (always labelled too: colour is never the only cue). */
+/** A colour per kind of crop for rotation strips and plan grids (always labelled too: colour is never the only cue). */
 const cropCellClass = new Map([
 	['corn', 'bg-straw-200 border-straw-400'],
 	['soybean', 'bg-clover-100 border-clover-300'],

@@ -13,3 +13,9 @@ export function formatNumber(value: number | null | undefined, digits = 0): stri
 	}
 	return formatter.format(value);
 }
+
+/** Dollars with the sign before the symbol, as budgets print them: $1,200 and −$1,200. */
+export function formatUsd(value: number | null | undefined, digits = 0): string {
+	if (value === null || value === undefined || Number.isNaN(value)) return '—';
+	return `${value < 0 ? '−' : ''}$${formatNumber(Math.abs(value), digits)}`;
+}

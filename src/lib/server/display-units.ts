@@ -39,3 +39,23 @@ export function displayUnits(system: UnitSystem) {
 		}
 	};
 }
+
+/** A quantity's shown unit and how many of it one US unit makes: plain numbers a page can scale by. */
+export interface ShownScale {
+	unit: string;
+	perUs: number;
+}
+
+/**
+ * The scales a page needs to show engine results (US customary) in the farm's units without loading
+ * the units library in the browser: shown = US value × `perUs`; a price or amount per area divides.
+ */
+export function shownScales(
+	system: UnitSystem
+): Record<'area' | 'mass' | 'rate' | 'volume', ShownScale> {
+	const scale = (quantity: Quantity): ShownScale => ({
+		unit: quantityUnits[quantity][system],
+		perUs: system === 'metric' ? quantityUnits[quantity].metricPerUs : 1
+	});
+	return { area: scale('area'), mass: scale('mass'), rate: scale('rate'), volume: scale('volume') };
+}

@@ -7,11 +7,7 @@ import { requireFarmAccess, roleAllows } from '$lib/server/auth/access';
 import { db } from '$lib/server/db';
 import { listPracticeIdsByKey } from '$lib/server/db/crop-practices';
 import { chooseRotationKey, insertRotation, listRotations } from '$lib/server/db/rotations';
-import {
-	loadRotationChoices,
-	rotationFromFormOrErrors,
-	rotationYear
-} from '$lib/server/practices';
+import { loadRotationChoices, rotationFromFormOrErrors, rotationYear } from '$lib/server/practices';
 import type { Actions, PageServerLoad } from './$types';
 
 const rotationForm = zod4(rotationFormSchema);

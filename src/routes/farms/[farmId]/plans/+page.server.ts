@@ -1,0 +1,120 @@
+import { error, fail, redirect } from '@sveltejs/kit';
+import { parsePlanDocument } from '$lib/schemas/plan-file';
+import { planCopySchema } from '$lib/schemas/plans';
+import { toFieldIssues } from '$lib/schemas/issues';
+import { requireFarmAccess, requirePlanAccess, roleAllows } from '$lib/server/auth/access';
+import { db } from '$lib/server/db';
+import { importPlanDocument } from '$lib/server/db/plan-documents';
+import {
+	createPlan,
+	deletePlan,
+	findVersionContent,
+	listPlansByFarm,
+	makeReferencePlan
+} from '$lib/server/db/plans';
+import { referencePlanDeleteMessage } from '$lib/server/plans';
+import type { Actions, PageServerLoad } from './$types';
+
+// A plan file is a few hundred kB at most (2,000 fields); the server's body limit is 2 MB.
+const maxPlanFileBytes = 2_000_000;
+
+export const load = (async (event) => {
+	const { farm, role } = await requireFarmAccess(event, event.params.farmId, 'farm:view');
+	return {
+		farm: { id: farm.id, name: farm.name },
+		canEdit: roleAllows(role, 'plan:edit'),
+		canDelete: roleAllows(role, 'plan:delete'),
+		plans: await listPlansByFarm(db, farm.id)
+	};
+}) satisfies PageServerLoad;
+
+const planIdOf = (form: FormData) => String(form.get('planId') ?? '');
+
+export const actions = {
+	/** A new plan as a copy of one the farm has (the reference plan, usually), under a new name. */
+	copy: async (event) => {
+		const form = await event.request.formData();
+		const { user, farm, plan } = await requirePlanAccess(
+			event,
+			event.params.farmId,
+			planIdOf(form),
+			'plan:edit'
+		);
+		const parsed = planCopySchema.safeParse({ name: String(form.get('name') ?? '') });
+		if (!parsed.success) {
+			return fail(400, { action: 'copy', issues: toFieldIssues(parsed.error) });
+		}
+		const content = await findVersionContent(db, plan.id, plan.currentVersion);
+		if (!content) error(404, 'Plan version not found.');
+		const saved = await createPlan(db, {
+			farmId: farm.id,
+			userId: user.id,
+			name: parsed.data.name,
+			content,
+			changeNote: `Copied from "${plan.name}" version ${plan.currentVersion}`
+		});
+		redirect(303, `/farms/${farm.id}/plans/${saved.planId}`);
+	},
+	/** A plan file (format 1 or 2) as a new plan; a file with any problem saves nothing. */
+	import: async (event) => {
+		const { user, farm } = await requireFarmAccess(event, event.params.farmId, 'plan:edit');
+		const file = (await event.request.formData()).get('file');
+		if (!(file instanceof File) || file.size === 0) {
+			return fail(400, { action: 'import', issues: [noFile] });
+		}
+		if (file.size > maxPlanFileBytes) {
+			return fail(400, {
+				action: 'import',
+				issues: [{ path: 'file', message: 'A plan file is at most 2 MB.' }]
+			});
+		}
+		let json: unknown;
+		try {
+			json = JSON.parse(await file.text());
+		} catch {
+			return fail(400, {
+				action: 'import',
+				issues: [{ path: '(document)', message: 'The file is not JSON: choose a plan file.' }]
+			});
+		}
+		const parsed = parsePlanDocument(json);
+		if (!parsed.ok) return fail(400, { action: 'import', issues: parsed.issues });
+		const saved = await db.transaction((tx) =>
+			importPlanDocument(tx, {
+				farmId: farm.id,
+				userId: user.id,
+				doc: parsed.plan,
+				isReference: false
+			})
+		);
+		redirect(303, `/farms/${farm.id}/plans/${saved.planId}`);
+	},
+	reference: async (event) => {
+		const { user, farm, plan } = await requirePlanAccess(
+			event,
+			event.params.farmId,
+			planIdOf(await event.request.formData()),
+			'plan:edit'
+		);
+		await makeReferencePlan(db, farm.id, user.id, plan);
+		return { action: 'reference', done: `"${plan.name}" is now the farm's reference plan.` };
+	},
+	delete: async (event) => {
+		const { user, farm, plan } = await requirePlanAccess(
+			event,
+			event.params.farmId,
+			planIdOf(await event.request.formData()),
+			'plan:delete'
+		);
+		if (plan.isReference) {
+			return fail(409, {
+				action: 'delete',
+				issues: [{ path: 'planId', message: referencePlanDeleteMessage(plan.name) }]
+			});
+		}
+		await deletePlan(db, farm.id, user.id, plan);
+		return { action: 'delete', done: `"${plan.name}" was deleted.` };
+	}
+} satisfies Actions;
+
+const noFile = { path: 'file', message: 'Choose a plan file (.json) to import.' };

@@ -44,8 +44,9 @@ export interface FieldSummary {
 }
 
 /** What the plan editor shows as a plan is edited: farm-years, each field's returns and the partial budget. */
-export interface PlanSummary extends Omit<PlanResult, 'fieldYears'> {
+export interface PlanSummary extends Omit<PlanResult, 'fieldYears' | 'farmYears'> {
 	detail: 'summary';
+	farmYears: FarmYearSummary[];
 	fields: FieldSummary[];
 }
 

@@ -2,7 +2,14 @@
 // each input), a reviewer's read-only view, and screenshots at phone and desktop width.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { BrowserContext, Page } from 'playwright-core';
-import { openBrowser, screenshot, signInAs, viewports } from '../support/browser';
+import {
+	openBrowser,
+	overflow,
+	screenshot,
+	signInAs,
+	smallTargets,
+	viewports
+} from '../support/browser';
 import { demoUsers } from '../support/server';
 
 let context: BrowserContext;
@@ -31,31 +38,6 @@ beforeAll(async () => {
 	await page.close();
 });
 afterAll(() => close());
-
-/** How far the page is wider than the window, with what sticks out when it is (to find the cause). */
-const overflow = async (page: Page) => {
-	const { wider, outside } = await page.evaluate(() => ({
-		wider: document.documentElement.scrollWidth - window.innerWidth,
-		outside: [...document.querySelectorAll('body *')]
-			.filter((el) => el.getBoundingClientRect().right > window.innerWidth + 1)
-			.filter((el) => !el.closest('.overflow-x-auto'))
-			.map((el) => `${el.tagName} ${el.className} ${el.textContent?.slice(0, 30)}`)
-	}));
-	if (wider > 0) console.log(outside);
-	return wider;
-};
-
-/** Buttons and links in the page's main part smaller than a 44 px touch target, by their text. */
-const smallTargets = (page: Page) =>
-	page.evaluate(() =>
-		[...document.querySelectorAll('main a, main button, main input, main select')]
-			.filter((el) => {
-				const box = el.getBoundingClientRect();
-				if (el instanceof HTMLInputElement && el.type === 'checkbox') return false;
-				return box.width > 0 && box.height < 44;
-			})
-			.map((el) => el.textContent?.trim() || el.getAttribute('name'))
-	);
 
 async function addField(page: Page, name: string, acres: string, key: string) {
 	await page.getByLabel('Field name').fill(name);

@@ -72,3 +72,28 @@ export async function screenshot(page: Page, name: string) {
 	await mkdir('screenshots', { recursive: true });
 	await page.screenshot({ path: `screenshots/${name}.png`, fullPage: true });
 }
+
+/** How far the page is wider than the window, with what sticks out when it is (to find the cause). */
+export const overflow = async (page: Page) => {
+	const { wider, outside } = await page.evaluate(() => ({
+		wider: document.documentElement.scrollWidth - window.innerWidth,
+		outside: [...document.querySelectorAll('body *')]
+			.filter((el) => el.getBoundingClientRect().right > window.innerWidth + 1)
+			.filter((el) => !el.closest('.overflow-x-auto'))
+			.map((el) => `${el.tagName} ${el.className} ${el.textContent?.slice(0, 30)}`)
+	}));
+	if (wider > 0) console.log(outside);
+	return wider;
+};
+
+/** Buttons and links in the page's main part smaller than a 44 px touch target, by their text. */
+export const smallTargets = (page: Page) =>
+	page.evaluate(() =>
+		[...document.querySelectorAll('main a, main button, main input, main select')]
+			.filter((el) => {
+				const box = el.getBoundingClientRect();
+				if (el instanceof HTMLInputElement && el.type === 'checkbox') return false;
+				return box.width > 0 && box.height < 44;
+			})
+			.map((el) => el.textContent?.trim() || el.getAttribute('name'))
+	);

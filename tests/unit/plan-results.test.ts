@@ -9,7 +9,7 @@ import LabourChart from '../../src/lib/components/plan-results/LabourChart.svelt
 import NetReturnChart from '../../src/lib/components/plan-results/NetReturnChart.svelte';
 import NitrogenChart from '../../src/lib/components/plan-results/NitrogenChart.svelte';
 import { usResultUnits } from '../../src/lib/components/plan-results/result-units';
-import { resultUnits } from '../../src/lib/components/plan-results/result-units.server';
+import { shownScales } from '../../src/lib/server/display-units';
 import { farmYearTableRows } from '../../src/lib/csv-export';
 import {
 	evaluatePlan,
@@ -163,7 +163,7 @@ describe('the whole-farm table', () => {
 	});
 
 	it('shows N, diesel and per-area figures in metric units on a metric farm', () => {
-		const units = resultUnits('metric');
+		const units = shownScales('metric');
 		const us = farmYearTableRows(reference.farmYears);
 		const metric = farmYearTableRows(reference.farmYears, units);
 		const byKey = (rows: typeof us, key: string) => rows.find((r) => r.key === key)!;
@@ -186,7 +186,7 @@ describe('the whole-farm table', () => {
 	});
 
 	it('takes US customary units by default, the same the server gives a US farm', () => {
-		expect(resultUnits('us')).toEqual(usResultUnits);
+		expect(shownScales('us')).toMatchObject(usResultUnits);
 	});
 });
 
@@ -314,7 +314,7 @@ describe('the nitrogen chart', () => {
 	});
 
 	it('shows kg N on a metric farm', () => {
-		const units = resultUnits('metric');
+		const units = shownScales('metric');
 		const page = html(NitrogenChart, { farmYears: reference.farmYears, units });
 		expect(detailColumns(page)[1]).toBe('Need (kg N)');
 		const needLb = reference.farmYears[0].nitrogen.needLb;
@@ -349,7 +349,7 @@ describe('the diesel chart', () => {
 		const page = html(DieselChart, {
 			years,
 			series: [{ label: 'This plan', values: gallons }],
-			units: resultUnits('metric')
+			units: shownScales('metric')
 		});
 		expect(detailColumns(page)).toEqual(['Year', 'This plan (L)']);
 		expect(detailRows(page).map((r) => r.cells[0])).toEqual(

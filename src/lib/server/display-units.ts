@@ -5,6 +5,7 @@ import {
 	toMetric,
 	type Quantity
 } from '$lib/engine/units';
+import type { ResultUnit, ResultUnits } from '$lib/components/plan-results/result-units';
 import type { CropDefinition } from '$lib/schemas/crops';
 import type { UnitSystem } from '$lib/unit-systems';
 
@@ -40,20 +41,12 @@ export function displayUnits(system: UnitSystem) {
 	};
 }
 
-/** A quantity's shown unit and how many of it one US unit makes: plain numbers a page can scale by. */
-export interface ShownScale {
-	unit: string;
-	perUs: number;
-}
-
 /**
- * The scales a page needs to show engine results (US customary) in the farm's units without loading
- * the units library in the browser: shown = US value × `perUs`; a price or amount per area divides.
+ * The units a page shows engine results (US customary) in, as plain numbers so the browser never loads
+ * the units library: shown = US value × `perUs`; an amount per area divides by the area's.
  */
-export function shownScales(
-	system: UnitSystem
-): Record<'area' | 'mass' | 'rate' | 'volume', ShownScale> {
-	const scale = (quantity: Quantity): ShownScale => ({
+export function shownScales(system: UnitSystem): ResultUnits & { rate: ResultUnit } {
+	const scale = (quantity: Quantity): ResultUnit => ({
 		unit: quantityUnits[quantity][system],
 		perUs: system === 'metric' ? quantityUnits[quantity].metricPerUs : 1
 	});

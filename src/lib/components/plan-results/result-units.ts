@@ -1,6 +1,6 @@
 /**
  * How the results show the quantities that differ between unit systems: the unit's name and how many
- * of it make one US unit. Plain data, so a page can take it from the server (`result-units.server.ts`)
+ * of it make one US unit. Plain data, so a page can take it from the server (`shownScales` in server/display-units.ts)
  * without loading the units library in the browser.
  */
 export interface ResultUnit {

@@ -4,11 +4,13 @@
  * Exits 1 when a target is missed: under 5 ms per evaluation of a validated plan, under 4 ms for the
  * partial budget of two evaluated plans (a reference whose fields mostly grow another crop, so most lines
  * are gross), under 20 ms with validation. Evaluating both plans and their budget together is reported
- * beside them, without a target of its own: it is two evaluations and a budget.
+ * beside them, without a target of its own: it is two evaluations and a budget. It also reports the size
+ * of the results answer for the plan, the summary the plan editor fetches (under 100 KB) beside the full
+ * answer with every field-year (no target).
  */
 import { readFileSync } from 'node:fs';
 import { performance } from 'node:perf_hooks';
-import { evaluatePlan } from '../src/lib/engine';
+import { evaluatePlan, summarisePlan } from '../src/lib/engine';
 import { nonFiniteNumberPaths } from '../src/lib/engine/finite';
 import { partialBudget, yearItems } from '../src/lib/engine/partial-budget';
 import { parsePlanDocument, type PlanDocument } from '../src/lib/schemas/plan-file';
@@ -17,6 +19,7 @@ const fieldCount = 100;
 const runs = 300;
 const warmUpRuns = 30;
 const targetsMs = { evaluate: 5, partialBudget: 4, parseAndEvaluate: 20 };
+const targetsKb = { summary: 100 };
 
 type PlanJson = {
 	fields: Record<string, unknown>[];
@@ -151,6 +154,17 @@ const rows = [
 	}
 ];
 
+// The answers' JSON as the results route sends them (characters; the JSON is ASCII but for names).
+const evaluated = evaluatePlan(plan);
+const sizes = [
+	{ what: 'full answer (detail=full)', kb: JSON.stringify(evaluated).length / 1024, target: null },
+	{
+		what: 'summary answer',
+		kb: JSON.stringify(summarisePlan(evaluated)).length / 1024,
+		target: targetsKb.summary
+	}
+];
+
 const maxRssMb = process.resourceUsage().maxRSS / 1024;
 const peakHeapMb = Math.max(peakHeapBytes, process.memoryUsage().heapUsed) / 1024 / 1024;
 
@@ -167,6 +181,15 @@ for (const row of rows) {
 	const target = row.target === null ? '-' : `< ${row.target}`;
 	console.log(
 		`${pad(row.what, 28)}${num(row.ms, 3)}  ${target.padStart(8)}  ${ok ? 'ok' : 'OVER'}`
+	);
+}
+console.log(`${pad('answer size', 28)}${'KB'.padStart(9)}  ${'target'.padStart(8)}  result`);
+for (const row of sizes) {
+	const ok = row.target === null || row.kb < row.target;
+	missed ||= !ok;
+	const target = row.target === null ? '-' : `< ${row.target} KB`;
+	console.log(
+		`${pad(row.what, 28)}${num(row.kb, 1)}  ${target.padStart(8)}  ${ok ? 'ok' : 'OVER'}`
 	);
 }
 console.log(`${pad('peak RSS (maxRSS)', 28)}${num(maxRssMb, 1)}  ${'MB'.padStart(8)}`);

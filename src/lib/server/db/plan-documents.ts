@@ -97,7 +97,8 @@ export async function draftPlanDocument(
 		notes: draft.notes,
 		farm: settings,
 		crops,
-		fields: draft.plan.fieldRotations.flatMap(({ fieldId }) => {
+		// Each field once, even when the draft gives it twice: parsing names the second assignment.
+		fields: [...new Set(draft.plan.fieldRotations.map((a) => a.fieldId))].flatMap((fieldId) => {
 			const field = fieldByKey.get(fieldId);
 			if (!field) return [];
 			return [

@@ -3,6 +3,7 @@ import type { Herd } from '$lib/schemas/plan-file';
 import { insertAuditEntry } from './audit';
 import type { Db, Tx } from './client';
 import { isRowId } from './keys';
+import { lockFarm } from './people';
 import { planFieldAssignments, plans, planVersions, users } from './schema';
 
 /** A new plan as version 1: its horizon, the herd it runs, and a rotation for each field (row ids). */
@@ -284,6 +285,8 @@ export async function makeReferencePlan(
 	plan: PlanRow
 ) {
 	await db.transaction(async (tx) => {
+		// Two plans made the reference at once: the second waits, then finds the first's reference.
+		await lockFarm(tx, farmId);
 		await tx
 			.update(plans)
 			.set({ isReference: false })

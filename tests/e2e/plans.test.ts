@@ -36,7 +36,8 @@ beforeAll(async () => {
 afterAll(() => close());
 
 /** The whole-farm table's first-year net return as printed. */
-const firstNetReturn = (page: Page) => page.getByTestId('net-return').first().textContent();
+const firstNetReturn = (page: Page) =>
+	page.locator('tr[data-row="netReturn"] td').first().textContent();
 
 /** Waits for the live results to answer once more after `change`, and returns the new figure. */
 async function afterResults(page: Page, change: () => Promise<unknown>) {
@@ -51,7 +52,7 @@ async function openNewCopy(page: Page, name: string) {
 	await page.getByLabel('Name of the new plan').fill(name);
 	await page.getByRole('button', { name: 'Make the copy' }).click();
 	await page.waitForURL(/\/plans\/[0-9a-f-]{36}$/);
-	await page.getByTestId('net-return').first().waitFor();
+	await page.locator('tr[data-row="netReturn"] td').first().waitFor();
 }
 
 describe('an owner', () => {
@@ -61,7 +62,7 @@ describe('an owner', () => {
 		await page.getByLabel('Plan file').setInputFiles('scenarios/small-grain-peas.json');
 		await page.getByRole('button', { name: 'Import' }).click();
 		await page.waitForURL(/\/plans\/[0-9a-f-]{36}$/);
-		await expect.poll(() => page.getByTestId('net-return').count()).toBe(5);
+		await expect.poll(() => page.locator('tr[data-row="netReturn"] td').count()).toBe(5);
 		await page.goto(plansPath);
 		expect(await page.locator('[data-plan]').count()).toBe(2);
 		await page.close();
@@ -145,7 +146,7 @@ describe('an owner', () => {
 		const page = await context.newPage();
 		await page.goto(plansPath);
 		await page.locator('[data-plan] a').first().click();
-		await page.getByTestId('net-return').first().waitFor();
+		await page.locator('tr[data-row="netReturn"] td').first().waitFor();
 		for (const [name, size] of Object.entries(viewports)) {
 			await page.setViewportSize(size);
 			expect(await overflow(page)).toBe(0);

@@ -2,12 +2,13 @@ import { error, fail, redirect } from '@sveltejs/kit';
 import { parsePlanDocument } from '$lib/schemas/plan-file';
 import { planCopySchema } from '$lib/schemas/plans';
 import { toFieldIssues } from '$lib/schemas/issues';
-import { requireFarmAccess, requirePlanAccess, roleAllows } from '$lib/server/auth/access';
+import { requireFarmAccess, roleAllows } from '$lib/server/auth/access';
 import { db } from '$lib/server/db';
 import { importPlanDocument } from '$lib/server/db/plan-documents';
 import {
 	createPlan,
 	deletePlan,
+	findPlan,
 	findVersionContent,
 	listPlansByFarm,
 	makeReferencePlan
@@ -28,18 +29,19 @@ export const load = (async (event) => {
 	};
 }) satisfies PageServerLoad;
 
-const planIdOf = (form: FormData) => String(form.get('planId') ?? '');
+/** The farm's plan a form names; 404 for any other. */
+async function planOf(farmId: string, form: FormData) {
+	const plan = await findPlan(db, farmId, String(form.get('planId') ?? ''));
+	if (!plan) error(404, 'Plan not found.');
+	return plan;
+}
 
 export const actions = {
 	/** A new plan as a copy of one the farm has (the reference plan, usually), under a new name. */
 	copy: async (event) => {
+		const { user, farm } = await requireFarmAccess(event, event.params.farmId, 'plan:edit');
 		const form = await event.request.formData();
-		const { user, farm, plan } = await requirePlanAccess(
-			event,
-			event.params.farmId,
-			planIdOf(form),
-			'plan:edit'
-		);
+		const plan = await planOf(farm.id, form);
 		const parsed = planCopySchema.safeParse({ name: String(form.get('name') ?? '') });
 		if (!parsed.success) {
 			return fail(400, { action: 'copy', issues: toFieldIssues(parsed.error) });
@@ -90,22 +92,14 @@ export const actions = {
 		redirect(303, `/farms/${farm.id}/plans/${saved.planId}`);
 	},
 	reference: async (event) => {
-		const { user, farm, plan } = await requirePlanAccess(
-			event,
-			event.params.farmId,
-			planIdOf(await event.request.formData()),
-			'plan:edit'
-		);
+		const { user, farm } = await requireFarmAccess(event, event.params.farmId, 'plan:edit');
+		const plan = await planOf(farm.id, await event.request.formData());
 		await makeReferencePlan(db, farm.id, user.id, plan);
 		return { action: 'reference', done: `"${plan.name}" is now the farm's reference plan.` };
 	},
 	delete: async (event) => {
-		const { user, farm, plan } = await requirePlanAccess(
-			event,
-			event.params.farmId,
-			planIdOf(await event.request.formData()),
-			'plan:delete'
-		);
+		const { user, farm } = await requireFarmAccess(event, event.params.farmId, 'plan:delete');
+		const plan = await planOf(farm.id, await event.request.formData());
 		if (plan.isReference) {
 			return fail(409, {
 				action: 'delete',

@@ -239,6 +239,23 @@ export async function createPlan(
 	});
 }
 
+/** A new plan holding a copy of a plan's newest version, under its own name. */
+export async function copyPlan(
+	db: Db | Tx,
+	copy: { farmId: string; userId: string; plan: PlanRow; name: string }
+) {
+	const { farmId, userId, plan, name } = copy;
+	const content = await findVersionContent(db, plan.id, plan.currentVersion);
+	if (!content) throw new Error(`Plan ${plan.id} has no version ${plan.currentVersion}`);
+	return createPlan(db, {
+		farmId,
+		userId,
+		name,
+		content,
+		changeNote: `Copied from "${plan.name}" version ${plan.currentVersion}`
+	});
+}
+
 /** A version's content with row ids, to copy or restore it. */
 export async function findVersionContent(
 	db: Db | Tx,

@@ -6,10 +6,9 @@ import { requireFarmAccess, roleAllows } from '$lib/server/auth/access';
 import { db } from '$lib/server/db';
 import { importPlanDocument } from '$lib/server/db/plan-documents';
 import {
-	createPlan,
+	copyPlan,
 	deletePlan,
 	findPlan,
-	findVersionContent,
 	listPlansByFarm,
 	makeReferencePlan
 } from '$lib/server/db/plans';
@@ -46,14 +45,11 @@ export const actions = {
 		if (!parsed.success) {
 			return fail(400, { action: 'copy', issues: toFieldIssues(parsed.error) });
 		}
-		const content = await findVersionContent(db, plan.id, plan.currentVersion);
-		if (!content) error(404, 'Plan version not found.');
-		const saved = await createPlan(db, {
+		const saved = await copyPlan(db, {
 			farmId: farm.id,
 			userId: user.id,
-			name: parsed.data.name,
-			content,
-			changeNote: `Copied from "${plan.name}" version ${plan.currentVersion}`
+			plan,
+			name: parsed.data.name
 		});
 		redirect(303, `/farms/${farm.id}/plans/${saved.planId}`);
 	},

@@ -1,9 +1,9 @@
-import { error, json } from '@sveltejs/kit';
+import { json } from '@sveltejs/kit';
 import { planCopySchema } from '$lib/schemas/plans';
 import { invalidInput, readJson } from '$lib/server/api';
 import { requirePlanAccess } from '$lib/server/auth/access';
 import { db } from '$lib/server/db';
-import { createPlan, findVersionContent } from '$lib/server/db/plans';
+import { copyPlan } from '$lib/server/db/plans';
 import type { RequestHandler } from './$types';
 
 /** A copy of the plan's newest version as a new plan named `name` (owner or editor): 201 `{ plan }`. */
@@ -18,14 +18,11 @@ export const POST: RequestHandler = async (event) => {
 	if (!body.ok) return body.response;
 	const parsed = planCopySchema.safeParse(body.body);
 	if (!parsed.success) return invalidInput(parsed.error);
-	const content = await findVersionContent(db, plan.id, plan.currentVersion);
-	if (!content) error(404, 'Plan version not found.');
-	const saved = await createPlan(db, {
+	const saved = await copyPlan(db, {
 		farmId: farm.id,
 		userId: user.id,
-		name: parsed.data.name,
-		content,
-		changeNote: `Copied from "${plan.name}" version ${plan.currentVersion}`
+		plan,
+		name: parsed.data.name
 	});
 	return json(
 		{ plan: { id: saved.planId, name: parsed.data.name, version: saved.version } },

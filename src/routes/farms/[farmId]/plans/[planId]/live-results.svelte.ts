@@ -15,7 +15,7 @@ export class LiveResults {
 	issues = $state<FieldIssue[]>([]);
 	message = $state('');
 	loading = $state(false);
-	/** Counts answers shown, so tests and the bench can wait for the next one. */
+	/** Answers shown so far (the page prints it for tests and the bench to wait on). */
 	answered = $state(0);
 	#timer: ReturnType<typeof setTimeout> | undefined;
 	#controller: AbortController | undefined;

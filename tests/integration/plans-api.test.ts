@@ -10,7 +10,13 @@ import type {
 	PlanResult,
 	PlanSummary as EnginePlanSummary
 } from '../../src/lib/engine';
-import { parsePlanDocument, type PlanDocument } from '../../src/lib/schemas/plan-file';
+import {
+	parsePlanDocument,
+	type PlanDocument,
+	type PlanDocumentInput
+} from '../../src/lib/schemas/plan-file';
+
+type PlanAdjustmentInput = NonNullable<PlanDocumentInput['plan']['adjustments']>[number];
 import { planVersions } from '../../src/lib/server/db/schema';
 import { testDb } from '../support/db';
 import { addMember } from '../support/farms';
@@ -30,6 +36,7 @@ interface Draft {
 		horizon: { startYear: number; years: number };
 		fieldRotations: FieldRotation[];
 		assumptions: string[];
+		adjustments?: PlanAdjustmentInput[];
 	};
 	herd: unknown;
 	notes: string;
@@ -267,6 +274,28 @@ describe('versions', () => {
 		// Results of version 1 are still those of the content it was saved with.
 		const first = await results(id, '?version=1');
 		expect(first.fields.find((f) => f.fieldId === 'creek-bottom')!.rotationId).toBe('corn-soybean');
+	});
+
+	it('keeps a version’s N and yield changes, and its results follow them', async () => {
+		const { id, draft } = await referenceCopy('Thirty pounds less N');
+		const edited = structuredClone(draft);
+		edited.plan.adjustments = [{ nitrogenChangeLbPerAcre: -30, yieldChangePercent: 0 }];
+		await body(await owner.json(planUrl(id), 'PUT', { ...edited, baseVersion: 1 }), 200);
+		expect((await getPlan(id)).plan.adjustments).toEqual(edited.plan.adjustments);
+		const [before, after] = [await results(id, '?version=1'), await results(id)];
+		// Every field-year applying N applies 30 lb/ac less (none below zero), so the farm buys less.
+		after.farmYears.forEach((year, i) => {
+			expect(year.nitrogen.appliedLb).toBeLessThan(before.farmYears[i].nitrogen.appliedLb);
+		});
+		const refused = await owner.json(planUrl(id), 'PUT', {
+			...edited,
+			plan: { ...edited.plan, adjustments: [{ practiceId: 'no-such-practice' }] },
+			baseVersion: 2
+		});
+		expect(paths((await body<{ issues: Issue[] }>(refused, 422)).issues)).toEqual([
+			'plan.adjustments.0.practiceId'
+		]);
+		expect((await listVersions(id)).length).toBe(2);
 	});
 
 	it('of two saves racing from the same version, saves one and refuses the other with the newest version', async () => {

@@ -126,6 +126,8 @@ export interface FieldYearInput {
 	operationsById: Map<string, FieldOperation>;
 	interestRatePercent: number;
 	credits: CarriedCredits;
+	/** The plan's change to the N the practice applies this year, lb N/ac (0: none). */
+	nitrogenChangeLbPerAcre?: number;
 }
 
 /** Row feet in an acre at a row spacing, and the seeds that fall on each foot. */
@@ -158,8 +160,9 @@ function nitrogenLedger(input: FieldYearInput, cropPrice: number): NitrogenLedge
 			? economicOptimumNLbPerAcre(response, priceRatio, yieldScale)
 			: null;
 	const stated = practice.nitrogen.appliedLbPerAcre;
-	const applied =
+	const planned =
 		stated === 'economic-optimum' ? Math.max((optimum ?? 0) - creditLbPerAcre, 0) : stated;
+	const applied = Math.max(planned + (input.nitrogenChangeLbPerAcre ?? 0), 0);
 	const available = applied + creditLbPerAcre;
 	return {
 		priceRatio,

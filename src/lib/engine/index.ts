@@ -1,6 +1,7 @@
 import type { FieldIssue } from '../schemas/issues';
 import type { PlanDocument } from '../schemas/plan-file';
 import type { UnitSystem } from '../unit-systems';
+import { adjustedPractice, adjustmentFor } from './adjustments';
 import { evaluateFarmYear, type FarmYearResult } from './farm-year';
 import {
 	creditsForNextYear,
@@ -78,12 +79,15 @@ function evaluateYears(plan: PlanDocument, budgeted: boolean) {
 			const assignment = assignmentByField.get(field.id)!;
 			const rotation = rotationById.get(assignment.rotationId)!;
 			const phase = (assignment.startingPhase - 1 + i) % rotation.practices.length;
-			const practice = practiceById.get(rotation.practices[phase])!;
+			const stated = practiceById.get(rotation.practices[phase])!;
+			const adjustment = adjustmentFor(plan.plan.adjustments, field.id, stated.id);
+			const practice = adjustedPractice(stated, adjustment);
 			const result = evaluateFieldYear({
 				field,
 				year,
 				rotationId: rotation.id,
 				practice,
+				nitrogenChangeLbPerAcre: adjustment.nitrogenChangeLbPerAcre,
 				crop: cropById.get(practice.crop)!,
 				prices,
 				herd: plan.herd,

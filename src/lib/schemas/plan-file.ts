@@ -382,6 +382,27 @@ export const priceSetSchema = z.strictObject({
 		.default({})
 });
 
+/** What a plan tries on top of its practices: lower N, a yield it expects (test years, not agronomy). */
+export const planAdjustmentSchema = z.strictObject({
+	practiceId: id('the practice id')
+		.optional()
+		.describe('Only this practice (any field, unless fieldId).'),
+	fieldId: id('the field id')
+		.optional()
+		.describe('Only this field (any practice, unless practiceId).'),
+	nitrogenChangeLbPerAcre: amount('the N rate change', {
+		min: -300,
+		max: 300,
+		unit: 'lb N per acre'
+	})
+		.default(0)
+		.describe('Added to the N the practice applies (never below 0); negative for less N.'),
+	yieldChangePercent: amount('the yield change', { min: -90, max: 100, unit: '%' })
+		.default(0)
+		.describe("Applied to the yield on top of the practice's own adjustment; negative for a loss.")
+});
+export type PlanAdjustment = z.output<typeof planAdjustmentSchema>;
+
 export const planSchema = z.strictObject({
 	name: name('the plan name'),
 	horizon: z.strictObject({
@@ -401,7 +422,12 @@ export const planSchema = z.strictObject({
 	),
 	assumptions: list('assumptions', text('an assumption', { max: 1000 }), { max: 100 })
 		.default([])
-		.describe('Plain statements shown with the results (what the plan takes for granted).')
+		.describe('Plain statements shown with the results (what the plan takes for granted).'),
+	adjustments: list('adjustments', planAdjustmentSchema, { max: 200 })
+		.default([])
+		.describe(
+			'Changes the plan tests on top of its practices: an N rate change and a yield change, for one practice, one field, both, or (naming neither) every field.'
+		)
 });
 
 const planDocumentShape = z.strictObject({
@@ -620,6 +646,15 @@ function checkReferences(doc: Shape, crops: Map<string, CropDefinition>, ctx: z.
 				[...path, 'startingPhase'],
 				`Rotation "${rotation.id}" has ${rotation.practices.length} phase(s); starting phase ${assignment.startingPhase} is out of range`
 			);
+		}
+	});
+	doc.plan.adjustments.forEach((adjustment, i) => {
+		const path: Path = ['plan', 'adjustments', i];
+		if (adjustment.fieldId !== undefined && !fieldIds.has(adjustment.fieldId)) {
+			refuse([...path, 'fieldId'], `Unknown field "${adjustment.fieldId}"`);
+		}
+		if (adjustment.practiceId !== undefined && !practiceById.has(adjustment.practiceId)) {
+			refuse([...path, 'practiceId'], `Unknown practice "${adjustment.practiceId}"`);
 		}
 	});
 	doc.fields.forEach((field, i) => {

@@ -37,7 +37,7 @@ export async function versionContent(
 	farmId: string,
 	draft: PlanDraft
 ): Promise<PlanVersionContent> {
-	const { fieldRotations, horizon, assumptions } = draft.plan;
+	const { fieldRotations, horizon, assumptions, adjustments } = draft.plan;
 	const [fieldIds, rotationIds] = await Promise.all([
 		findIdsByKey(
 			db,
@@ -56,6 +56,7 @@ export async function versionContent(
 		startYear: horizon.startYear,
 		years: horizon.years,
 		assumptions,
+		adjustments,
 		herd: draft.herd,
 		notes: draft.notes,
 		fieldRotations: fieldRotations.map((a) => ({

@@ -50,6 +50,7 @@ export async function importPlanDocument(
 		startYear: doc.plan.horizon.startYear,
 		years: doc.plan.horizon.years,
 		assumptions: doc.plan.assumptions,
+		adjustments: doc.plan.adjustments,
 		herd: doc.herd,
 		notes: doc.notes,
 		fieldRotations: doc.plan.fieldRotations.map((assignment) => ({
@@ -135,7 +136,8 @@ export function draftOfVersion(
 			name,
 			horizon: { startYear: version.startYear, years: version.years },
 			fieldRotations: version.fieldRotations,
-			assumptions: version.assumptions
+			assumptions: version.assumptions,
+			adjustments: version.adjustments
 		},
 		herd: version.herd ?? null,
 		notes: version.notes

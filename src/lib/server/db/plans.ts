@@ -1,5 +1,5 @@
 import { and, asc, desc, eq, sql } from 'drizzle-orm';
-import type { Herd } from '$lib/schemas/plan-file';
+import type { Herd, PlanAdjustment } from '$lib/schemas/plan-file';
 import { insertAuditEntry } from './audit';
 import type { Db, Tx } from './client';
 import { isRowId } from './keys';
@@ -15,6 +15,7 @@ export interface NewPlan {
 	startYear: number;
 	years: number;
 	assumptions: string[];
+	adjustments: PlanAdjustment[];
 	herd: Herd | null;
 	notes: string;
 	fieldRotations: { fieldId: string; rotationId: string; startingPhase: number }[];
@@ -40,6 +41,7 @@ export async function insertPlan(db: Db | Tx, plan: NewPlan) {
 				startYear: plan.startYear,
 				years: plan.years,
 				assumptions: plan.assumptions,
+				adjustments: plan.adjustments,
 				herd: plan.herd,
 				notes: plan.notes,
 				savedById: plan.userId
@@ -73,6 +75,7 @@ export interface PlanVersionContent {
 	startYear: number;
 	years: number;
 	assumptions: string[];
+	adjustments: PlanAdjustment[];
 	herd: Herd | null;
 	notes: string;
 	fieldRotations: { fieldId: string; rotationId: string; startingPhase: number }[];
@@ -271,6 +274,7 @@ export async function findVersionContent(
 		startYear: row.startYear,
 		years: row.years,
 		assumptions: row.assumptions,
+		adjustments: row.adjustments,
 		herd: row.herd ?? null,
 		notes: row.notes,
 		fieldRotations: row.assignments.map(({ fieldId, rotationId, startingPhase }) => ({

@@ -14,7 +14,7 @@ import {
 	uniqueIndex,
 	uuid
 } from 'drizzle-orm/pg-core';
-import type { Herd } from '../../../schemas/plan-file';
+import type { Herd, PlanAdjustment } from '../../../schemas/plan-file';
 import { users } from './auth';
 import { timestamps } from './columns';
 import { farmReference, farms } from './farms';
@@ -60,6 +60,8 @@ export const planVersions = pgTable(
 		years: smallint().notNull(),
 		/** Plain statements shown with the results. */
 		assumptions: jsonb().$type<string[]>().notNull().default([]),
+		/** The N and yield changes the plan tests, as the plan file's `plan.adjustments`. */
+		adjustments: jsonb().$type<PlanAdjustment[]>().notNull().default([]),
 		/**
 		 * The herd as this plan runs it (grazing season, manure credit…), starting from the farm's herd;
 		 * null: the plan keeps no cattle. Stated as the plan file's `herd`.

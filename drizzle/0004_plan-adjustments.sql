@@ -1,0 +1,1 @@
+ALTER TABLE "plan_versions" ADD COLUMN "adjustments" jsonb DEFAULT '[]'::jsonb NOT NULL;

@@ -8,13 +8,24 @@ import { demoUsers } from '../support/server';
 let context: BrowserContext;
 let close: () => Promise<void>;
 let owner: Awaited<ReturnType<typeof sessionCookies>>;
+let lender: Awaited<ReturnType<typeof sessionCookies>>;
 let farmPath: string;
+let referencePlanId: string;
+let alternativePlanId: string;
 
 beforeAll(async () => {
-	[{ context, close }, owner] = await Promise.all([openBrowser(), sessionCookies(demoUsers.owner)]);
+	[{ context, close }, owner, lender] = await Promise.all([
+		openBrowser(),
+		sessionCookies(demoUsers.owner),
+		sessionCookies(demoUsers.lender)
+	]);
 	await useSession(context, owner);
 	const { farms } = await (await context.request.get('/api/v1/farms')).json();
 	farmPath = `/farms/${farms.find((f: { name: string }) => f.name === 'Maple Coulee Farm').id}`;
+	// The demo's reference plan and the first of its alternatives by name.
+	const { plans } = await (await context.request.get(`/api/v1${farmPath}/plans`)).json();
+	referencePlanId = plans.find((p: { isReference: boolean }) => p.isReference).id;
+	alternativePlanId = plans.find((p: { isReference: boolean }) => !p.isReference).id;
 });
 afterAll(() => close());
 
@@ -40,6 +51,36 @@ const screens: [string, () => string][] = [
 	['glossary', () => '/glossary']
 ];
 
+// The plans pages, read-only (nothing here saves, so the seeded demo stays as it was), each with what
+// must be on the screen before axe looks: the results the editor fetches once the page has loaded.
+const planScreens: [string, () => string, { shows: string; atLeast: number }][] = [
+	['plans page', () => `${farmPath}/plans`, { shows: '[data-plan]', atLeast: 2 }],
+	[
+		'reference plan editor',
+		() => `${farmPath}/plans/${referencePlanId}`,
+		{ shows: 'tr[data-row="netReturn"]', atLeast: 1 }
+	],
+	[
+		'charts of an alternative plan',
+		() => `${farmPath}/plans/${alternativePlanId}?tab=charts`,
+		{ shows: 'figure', atLeast: 5 }
+	],
+	[
+		'partial budget of an alternative plan',
+		() => `${farmPath}/plans/${alternativePlanId}?tab=budget`,
+		{ shows: '[data-testid="partial-budget"]', atLeast: 1 }
+	],
+	[
+		'compare page',
+		() => `${farmPath}/plans/compare?plans=${referencePlanId},${alternativePlanId}`,
+		{ shows: '[data-testid="partial-budget"]', atLeast: 1 }
+	]
+];
+const viewers: [string, () => typeof owner][] = [
+	['owner', () => owner],
+	['lender (reviewer)', () => lender]
+];
+
 describe('accessibility', () => {
 	it.each(screens)('the %s has no WCAG A/AA violations', async (_name, path) => {
 		await useSession(context, owner);
@@ -48,6 +89,26 @@ describe('accessibility', () => {
 		expect(await violations(page)).toEqual([]);
 		await page.close();
 	});
+
+	it.each(
+		planScreens.flatMap(([name, path, screen]) =>
+			viewers.map(([who, cookies]) => [name, who, path, screen, cookies] as const)
+		)
+	)(
+		'the %s, as the %s, has no WCAG A/AA violations',
+		async (_name, _who, path, { shows, atLeast }, cookies) => {
+			await useSession(context, cookies());
+			const page = await context.newPage();
+			await page.goto(path());
+			await expect
+				.poll(() => page.locator(shows).count(), { timeout: 10_000 })
+				.toBeGreaterThanOrEqual(atLeast);
+			// The charts set the reference plan beside this one once its results come too.
+			await page.waitForLoadState('networkidle');
+			expect(await violations(page)).toEqual([]);
+			await page.close();
+		}
+	);
 
 	it('the sign-in page has none, signed out', async () => {
 		await useSession(context, []);

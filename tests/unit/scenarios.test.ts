@@ -1,6 +1,6 @@
 import { readdirSync, readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
-import { evaluatePlan } from '../../src/lib/engine';
+import { evaluatePlan, summarisePlan, type FarmYearSummary } from '../../src/lib/engine';
 import { parsePlanDocument, type PlanDocument } from '../../src/lib/schemas/plan-file';
 
 function load(name: string): PlanDocument {
@@ -62,5 +62,107 @@ describe('the demo farm', () => {
 		);
 		expect(hayLine?.item).toBe('Herd: purchased hay');
 		expect(hayLine?.amountUsd).toBeGreaterThan(0);
+	});
+});
+
+/** What one chart of the plan editor draws: every value, and the top of its value axis. */
+interface ChartPanel {
+	values: number[];
+	axisTop: number;
+}
+
+const chartNames = ['net return', 'labour', 'nitrogen', 'herd feed', 'diesel'] as const;
+type ChartName = (typeof chartNames)[number];
+
+/**
+ * The editor's five charts for a plan, from the engine's summary: one panel each, except labour, which
+ * shows one year at a time (the year is the viewer's choice), so a panel per year.
+ */
+function chartPanels(plan: PlanDocument): Record<ChartName, ChartPanel[]> {
+	const farmYears = summarisePlan(evaluatePlan(plan)).farmYears as FarmYearSummary[];
+	const panel = (values: number[], stackTops: number[] = values): ChartPanel => ({
+		values,
+		axisTop: Math.max(...stackTops.map(Math.abs))
+	});
+	const nitrogen = farmYears.map((y) => y.nitrogen);
+	return {
+		'net return': [panel(farmYears.map((y) => y.netReturnUsd))],
+		labour: farmYears.map((y) =>
+			panel(
+				[...y.fieldLabourHoursByMonth, ...y.choreHoursByMonth, ...y.labourHoursAvailableByMonth],
+				[...y.labourHoursByMonth, ...y.labourHoursAvailableByMonth]
+			)
+		),
+		nitrogen: [
+			panel(
+				nitrogen.flatMap((n) => [
+					n.needLb,
+					n.priorCropCreditLb,
+					n.coverCreditLb,
+					n.manureCreditLb,
+					n.purchasedLb
+				]),
+				nitrogen.flatMap((n) => [
+					n.needLb,
+					n.priorCropCreditLb + n.coverCreditLb + n.manureCreditLb + n.purchasedLb
+				])
+			)
+		],
+		// Grazed and hay-fed AU-days stack to the herd's need; hay bales bought follow the hay-fed part.
+		'herd feed': [
+			panel(
+				farmYears.flatMap((y) => [
+					y.grazingAuDays,
+					y.herdDemandAuDays - y.grazingAuDays,
+					y.hayBales
+				]),
+				farmYears.map((y) => y.herdDemandAuDays)
+			)
+		],
+		diesel: [panel(farmYears.map((y) => y.dieselGallons))]
+	};
+}
+
+// Our own reading of "visible", no published source: a bar or mark moved by 2 % of the value axis,
+// about 4 px on a 200-px chart. A chart differs when each of its panels has such a move.
+const visibleShareOfAxis = 0.02;
+
+function differsVisibly(reference: ChartPanel[], plan: ChartPanel[]): boolean {
+	return reference.every((ref, p) => {
+		const axisTop = Math.max(ref.axisTop, plan[p].axisTop);
+		return ref.values.some(
+			(value, i) => Math.abs(plan[p].values[i] - value) >= visibleShareOfAxis * axisTop
+		);
+	});
+}
+
+/** The charts in which a plan looks the same as the reference plan. */
+function chartsAlike(
+	reference: Record<ChartName, ChartPanel[]>,
+	plan: Record<ChartName, ChartPanel[]>
+): ChartName[] {
+	return chartNames.filter((chart) => !differsVisibly(reference[chart], plan[chart]));
+}
+
+describe('the demo alternatives beside the reference plan', () => {
+	const reference = chartPanels(load('reference'));
+
+	it('look the same as the reference plan only when they are the reference plan', () => {
+		expect(chartsAlike(reference, chartPanels(load('reference')))).toEqual([...chartNames]);
+	});
+
+	it('differ from it in every chart of the plan editor, at least two of them', () => {
+		// Issue 9: the reference plan and at least two alternatives whose differences show in every chart.
+		const alternatives = readdirSync('scenarios')
+			.map((f) => f.replace(/\.json$/, ''))
+			.filter((name) => name !== 'reference');
+		const alike = Object.fromEntries(
+			alternatives.map((name) => [name, chartsAlike(reference, chartPanels(load(name)))])
+		);
+		const differingEverywhere = alternatives.filter((name) => alike[name].length === 0);
+		expect(
+			differingEverywhere.length,
+			`charts alike: ${JSON.stringify(alike)}`
+		).toBeGreaterThanOrEqual(2);
 	});
 });

@@ -20,7 +20,7 @@ export const currentFormatVersion = 2;
 
 const name = (label: string) => text(label, { max: 120, required: true });
 const notes = (label: string) => text(label, { max: 4000 }).default('');
-const yearSchema = amount('the year', { min: 1950, max: 2200, integer: true });
+export const yearSchema = amount('the year', { min: 1950, max: 2200, integer: true });
 const usdPerAcre = (label: string) => amount(label, { min: 0, max: 5000, usdPer: 'acre' });
 
 // The farm part is the same shape the farm settings form and API take: one schema for both.

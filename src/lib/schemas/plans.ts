@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import { amount, id, text } from './messages';
-import { herdSchema, planSchema } from './plan-file';
+import { herdSchema, planSchema, yearSchema } from './plan-file';
 
 /**
  * A plan as the plans API and the plan editor take it: the plan file's own `plan` section (fields and
@@ -44,9 +44,6 @@ export const resultsQuerySchema = z.strictObject({
 	detail: z.enum(resultDetails, { error: 'The detail is "summary" or "full".' }).default('summary'),
 	/** With `full`: only this field's field-years (its plan-file key), and with `year` only that year. */
 	field: id('the field').optional(),
-	year: z.coerce
-		.number()
-		.pipe(amount('the year', { min: 1900, max: 2200, integer: true }))
-		.optional()
+	year: z.coerce.number().pipe(yearSchema).optional()
 });
 export type ResultsQuery = z.output<typeof resultsQuerySchema>;

@@ -1,4 +1,5 @@
 import { error } from '@sveltejs/kit';
+import { resultsQuerySchema } from '$lib/schemas/plans';
 import { requirePlanAccess, roleAllows } from '$lib/server/auth/access';
 import { displayUnits, shownScales } from '$lib/server/display-units';
 import { db } from '$lib/server/db';
@@ -19,8 +20,11 @@ export const load = (async (event) => {
 		event.params.planId,
 		'farm:view'
 	);
-	const asked = Number(event.url.searchParams.get('version') ?? plan.currentVersion);
-	const openedVersion = Number.isInteger(asked) ? asked : plan.currentVersion;
+	const asked = resultsQuerySchema
+		.pick({ version: true })
+		.safeParse({ version: event.url.searchParams.get('version') ?? undefined });
+	if (!asked.success) error(404, 'No such version of this plan.');
+	const openedVersion = asked.data.version ?? plan.currentVersion;
 	const [draft, versions, fields, rotations, { practices, cropById }, priceSets, plans, farmHerd] =
 		await Promise.all([
 			findDraft(db, plan, openedVersion),

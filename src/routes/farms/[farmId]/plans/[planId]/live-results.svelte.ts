@@ -24,6 +24,8 @@ export class LiveResults {
 
 	request(draft: PlanDraftInput) {
 		clearTimeout(this.#timer);
+		// An answer for an older draft must never land after this one was asked for.
+		this.#controller?.abort();
 		this.loading = true;
 		const body = JSON.stringify(draft);
 		this.#timer = setTimeout(() => this.#fetch(body), debounceMs);

@@ -14,8 +14,17 @@ import { parsePlanDocument, type PlanDocument } from '$lib/schemas/plan-file';
 import type { PlanDraft, ResultsQuery } from '$lib/schemas/plans';
 import type { Db, Tx } from '$lib/server/db/client';
 import { findIdsByKey } from '$lib/server/db/keys';
-import { draftOfVersion, draftPlanDocument } from '$lib/server/db/plan-documents';
-import { findPlanVersion, type PlanRow, type PlanVersionContent } from '$lib/server/db/plans';
+import {
+	draftOfVersion,
+	draftPlanDocument,
+	importPlanDocument
+} from '$lib/server/db/plan-documents';
+import {
+	findPlan,
+	findPlanVersion,
+	type PlanRow,
+	type PlanVersionContent
+} from '$lib/server/db/plans';
 import { fields, rotations, type farms } from '$lib/server/db/schema';
 
 type Farm = typeof farms.$inferSelect;
@@ -65,6 +74,58 @@ export async function versionContent(
 			startingPhase: a.startingPhase
 		}))
 	};
+}
+
+/**
+ * A stored version checked against the farm as it is now (a rotation may have been shortened since):
+ * what a copy or a restore must pass before it becomes a plan's newest version.
+ */
+export async function checkVersion(
+	db: Db | Tx,
+	farm: Farm,
+	plan: PlanRow,
+	version: number
+): Promise<Checked | undefined> {
+	const draft = await findDraft(db, plan, version);
+	return draft && checkDraft(db, farm, draft);
+}
+
+/** A plan file's plan, refused with its issues once imported, so the transaction saves nothing. */
+class ImportRefused extends Error {
+	constructor(readonly issues: FieldIssue[]) {
+		super('The imported plan does not evaluate on this farm');
+	}
+}
+
+/**
+ * Imports a validated plan file into the farm in one transaction, then checks the plan as the farm now
+ * holds it: parts the farm had under the same ids were kept, and the plan must still make sense with
+ * them. When it does not, nothing is saved and the issues say why.
+ */
+export async function importCheckedPlan(
+	db: Db,
+	farm: Farm,
+	userId: string,
+	doc: PlanDocument
+): Promise<{ ok: true; planId: string } | { ok: false; issues: FieldIssue[] }> {
+	try {
+		const planId = await db.transaction(async (tx) => {
+			const saved = await importPlanDocument(tx, {
+				farmId: farm.id,
+				userId,
+				doc,
+				isReference: false
+			});
+			const plan = (await findPlan(tx, farm.id, saved.planId))!;
+			const checked = await checkVersion(tx, farm, plan, 1);
+			if (!checked?.ok) throw new ImportRefused(checked?.issues ?? []);
+			return saved.planId;
+		});
+		return { ok: true, planId };
+	} catch (error) {
+		if (error instanceof ImportRefused) return { ok: false, issues: error.issues };
+		throw error;
+	}
 }
 
 /** A plan's version as a draft; undefined when the plan has no such version. */

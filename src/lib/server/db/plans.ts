@@ -285,16 +285,25 @@ export async function findVersionContent(
 	};
 }
 
-/** Deletes a plan with its versions and reviews; the farm's reference plan stays until another is made. */
+/**
+ * Deletes a plan with its versions and reviews, unless it is the farm's reference plan when the delete
+ * runs (the farm is locked, so a plan made the reference meanwhile is kept); whether it was deleted.
+ */
 export async function deletePlan(db: Db | Tx, farmId: string, userId: string, plan: PlanRow) {
-	await db.transaction(async (tx) => {
-		await tx.delete(plans).where(and(eq(plans.id, plan.id), eq(plans.farmId, farmId)));
+	return db.transaction(async (tx) => {
+		await lockFarm(tx, farmId);
+		const deleted = await tx
+			.delete(plans)
+			.where(and(eq(plans.id, plan.id), eq(plans.farmId, farmId), eq(plans.isReference, false)))
+			.returning({ id: plans.id });
+		if (!deleted.length) return false;
 		await insertAuditEntry(tx, {
 			farmId,
 			userId,
 			action: 'plan.deleted',
 			detail: { planId: plan.id, name: plan.name }
 		});
+		return true;
 	});
 }
 

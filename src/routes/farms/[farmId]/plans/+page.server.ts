@@ -4,7 +4,6 @@ import { planCopySchema } from '$lib/schemas/plans';
 import { toFieldIssues } from '$lib/schemas/issues';
 import { requireFarmAccess, roleAllows } from '$lib/server/auth/access';
 import { db } from '$lib/server/db';
-import { importPlanDocument } from '$lib/server/db/plan-documents';
 import {
 	copyPlan,
 	deletePlan,
@@ -12,7 +11,7 @@ import {
 	listPlansByFarm,
 	makeReferencePlan
 } from '$lib/server/db/plans';
-import { referencePlanDeleteMessage } from '$lib/server/plans';
+import { checkVersion, importCheckedPlan, referencePlanDeleteMessage } from '$lib/server/plans';
 import type { Actions, PageServerLoad } from './$types';
 
 // A plan file is a few hundred kB at most (2,000 fields); the server's body limit is 2 MB.
@@ -45,6 +44,8 @@ export const actions = {
 		if (!parsed.success) {
 			return fail(400, { action: 'copy', issues: toFieldIssues(parsed.error) });
 		}
+		const checked = await checkVersion(db, farm, plan, plan.currentVersion);
+		if (!checked?.ok) return fail(400, { action: 'copy', issues: checked?.issues ?? [] });
 		const saved = await copyPlan(db, {
 			farmId: farm.id,
 			userId: user.id,
@@ -77,14 +78,8 @@ export const actions = {
 		}
 		const parsed = parsePlanDocument(json);
 		if (!parsed.ok) return fail(400, { action: 'import', issues: parsed.issues });
-		const saved = await db.transaction((tx) =>
-			importPlanDocument(tx, {
-				farmId: farm.id,
-				userId: user.id,
-				doc: parsed.plan,
-				isReference: false
-			})
-		);
+		const saved = await importCheckedPlan(db, farm, user.id, parsed.plan);
+		if (!saved.ok) return fail(400, { action: 'import', issues: saved.issues });
 		redirect(303, `/farms/${farm.id}/plans/${saved.planId}`);
 	},
 	reference: async (event) => {
@@ -96,13 +91,12 @@ export const actions = {
 	delete: async (event) => {
 		const { user, farm } = await requireFarmAccess(event, event.params.farmId, 'plan:delete');
 		const plan = await planOf(farm.id, await event.request.formData());
-		if (plan.isReference) {
+		if (!(await deletePlan(db, farm.id, user.id, plan))) {
 			return fail(409, {
 				action: 'delete',
 				issues: [{ path: 'planId', message: referencePlanDeleteMessage(plan.name) }]
 			});
 		}
-		await deletePlan(db, farm.id, user.id, plan);
 		return { action: 'delete', done: `"${plan.name}" was deleted.` };
 	}
 } satisfies Actions;

@@ -78,7 +78,8 @@ export const DELETE: RequestHandler = async (event) => {
 		event.params.planId,
 		'plan:delete'
 	);
-	if (plan.isReference) return conflict(referencePlanDeleteMessage(plan.name));
-	await deletePlan(db, farm.id, user.id, plan);
+	if (!(await deletePlan(db, farm.id, user.id, plan))) {
+		return conflict(referencePlanDeleteMessage(plan.name));
+	}
 	return new Response(null, { status: 204 });
 };

@@ -3,13 +3,14 @@ import { parsePlanDocument } from '$lib/schemas/plan-file';
 import { readJson } from '$lib/server/api';
 import { requireFarmAccess } from '$lib/server/auth/access';
 import { db } from '$lib/server/db';
-import { importPlanDocument } from '$lib/server/db/plan-documents';
+import { importCheckedPlan } from '$lib/server/plans';
 import type { RequestHandler } from './$types';
 
 /**
  * Adds the plan of a plan file (format 1 or 2) to the farm, with the fields, practices, rotations and
  * prices it names that the farm does not have yet (parts the farm has under the same id are kept as
- * they are); owner or editor. A file with any problem: 422 naming the path of each, nothing saved.
+ * they are); owner or editor. A file with any problem, or a plan that does not work with the parts the
+ * farm kept: 422 naming the path of each, nothing saved.
  * 201 `{ plan: { id, name, version } }`.
  */
 export const POST: RequestHandler = async (event) => {

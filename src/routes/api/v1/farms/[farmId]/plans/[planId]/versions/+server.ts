@@ -4,7 +4,8 @@ import { conflict, invalidInput, readJson } from '$lib/server/api';
 import { requirePlanAccess } from '$lib/server/auth/access';
 import { db } from '$lib/server/db';
 import { findVersionContent, listPlanVersions, savePlanVersion } from '$lib/server/db/plans';
-import { versionConflictMessage } from '$lib/server/plans';
+import { invalidIssues } from '$lib/server/practices';
+import { checkVersion, versionConflictMessage } from '$lib/server/plans';
 import type { RequestHandler } from './$types';
 
 /** Every version, newest first: `{ versions: [{ version, savedAt, savedBy, changeNote, … }] }`. */
@@ -20,7 +21,8 @@ export const GET: RequestHandler = async (event) => {
 
 /**
  * Restores `version` by saving it again as the newest (owner or editor); like a save it carries
- * `baseVersion` and a stale one gets 409. 201 `{ plan: { id, name, version } }`.
+ * `baseVersion` and a stale one gets 409; a version that no longer makes a valid plan with the farm's
+ * data as it is now gets 422. 201 `{ plan: { id, name, version } }`.
  */
 export const POST: RequestHandler = async (event) => {
 	const { user, farm, plan } = await requirePlanAccess(
@@ -36,6 +38,8 @@ export const POST: RequestHandler = async (event) => {
 	const { version, baseVersion } = parsed.data;
 	const content = await findVersionContent(db, plan.id, version);
 	if (!content) error(404, 'Plan version not found.');
+	const checked = await checkVersion(db, farm, plan, version);
+	if (!checked?.ok) return invalidIssues(checked?.issues ?? []);
 	const outcome = await savePlanVersion(db, {
 		farmId: farm.id,
 		planId: plan.id,

@@ -24,14 +24,17 @@ export const POST: RequestHandler = async (event) => {
 			{ status: 422 }
 		);
 	}
-	const saved = await db.transaction((tx) =>
-		importPlanDocument(tx, {
-			farmId: farm.id,
-			userId: user.id,
-			doc: parsed.plan,
-			isReference: false
-		})
-	);
+	const saved = await importCheckedPlan(db, farm, user.id, parsed.plan);
+	if (!saved.ok) {
+		return json(
+			{
+				message:
+					'The plan does not work with the parts this farm already has under the same ids: nothing was saved.',
+				issues: saved.issues
+			},
+			{ status: 422 }
+		);
+	}
 	return json(
 		{ plan: { id: saved.planId, name: parsed.plan.plan.name, version: 1 } },
 		{ status: 201 }

@@ -298,6 +298,32 @@ describe('versions', () => {
 		expect((await listVersions(id)).length).toBe(2);
 	});
 
+	it('keeps a field’s N change on that field when its key is renamed', async () => {
+		const { id, draft } = await referenceCopy('Less N on one field');
+		const edited = structuredClone(draft);
+		const fieldKey = edited.plan.fieldRotations[0].fieldId;
+		edited.plan.adjustments = [
+			{ fieldId: fieldKey, nitrogenChangeLbPerAcre: -25, yieldChangePercent: 0 }
+		];
+		await body(await owner.json(planUrl(id), 'PUT', { ...edited, baseVersion: 1 }), 200);
+		const { fields } = await body<{ fields: { id: string; key: string }[] }>(
+			await owner.fetch(`/api/v1/farms/${farmId}/fields`),
+			200
+		);
+		const field = fields.find((f) => f.key === fieldKey)!;
+		const renamed = `${fieldKey}-renamed`;
+		await body(
+			await owner.json(`/api/v1/farms/${farmId}/fields/${field.id}`, 'PATCH', { key: renamed }),
+			200
+		);
+		expect((await getPlan(id)).plan.adjustments).toEqual([
+			{ fieldId: renamed, nitrogenChangeLbPerAcre: -25, yieldChangePercent: 0 }
+		]);
+		// The results still evaluate, with the change on the renamed field only.
+		const summary = await results(id);
+		expect(summary.fields.map((f) => f.fieldId)).toContain(renamed);
+	});
+
 	it('of two saves racing from the same version, saves one and refuses the other with the newest version', async () => {
 		const { id, draft } = await referenceCopy('Raced');
 		const ownersEdit = withRotation(draft, 'north-flat', wideRows);

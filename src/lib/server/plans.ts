@@ -22,10 +22,11 @@ import {
 import {
 	findPlan,
 	findPlanVersion,
+	storedAdjustments,
 	type PlanRow,
 	type PlanVersionContent
 } from '$lib/server/db/plans';
-import { fields, rotations, type farms } from '$lib/server/db/schema';
+import { cropPractices, fields, rotations, type farms } from '$lib/server/db/schema';
 
 type Farm = typeof farms.$inferSelect;
 type Checked = { ok: true; document: PlanDocument } | { ok: false; issues: FieldIssue[] };
@@ -47,7 +48,7 @@ export async function versionContent(
 	draft: PlanDraft
 ): Promise<PlanVersionContent> {
 	const { fieldRotations, horizon, assumptions, adjustments } = draft.plan;
-	const [fieldIds, rotationIds] = await Promise.all([
+	const [fieldIds, rotationIds, practiceIds] = await Promise.all([
 		findIdsByKey(
 			db,
 			fields,
@@ -59,13 +60,19 @@ export async function versionContent(
 			rotations,
 			farmId,
 			fieldRotations.map((a) => a.rotationId)
+		),
+		findIdsByKey(
+			db,
+			cropPractices,
+			farmId,
+			adjustments.flatMap((a) => (a.practiceId === undefined ? [] : [a.practiceId]))
 		)
 	]);
 	return {
 		startYear: horizon.startYear,
 		years: horizon.years,
 		assumptions,
-		adjustments,
+		adjustments: storedAdjustments(adjustments, fieldIds, practiceIds),
 		herd: draft.herd,
 		notes: draft.notes,
 		fieldRotations: fieldRotations.map((a) => ({

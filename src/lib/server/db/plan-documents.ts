@@ -14,7 +14,7 @@ import { exportFieldOperations, insertFieldOperations } from './field-operations
 import { insertFields, listFields } from './fields';
 import { insertHerd } from './herds';
 import { exportPeople, insertPeople } from './people';
-import { findPlanVersion, insertPlan } from './plans';
+import { findPlanVersion, insertPlan, storedAdjustments } from './plans';
 import { exportPriceSets, insertPriceSets } from './price-sets';
 import { exportRotations, insertRotations } from './rotations';
 import { plans, type farms } from './schema';
@@ -50,7 +50,7 @@ export async function importPlanDocument(
 		startYear: doc.plan.horizon.startYear,
 		years: doc.plan.horizon.years,
 		assumptions: doc.plan.assumptions,
-		adjustments: doc.plan.adjustments,
+		adjustments: storedAdjustments(doc.plan.adjustments, fieldIds, practiceIds),
 		herd: doc.herd,
 		notes: doc.notes,
 		fieldRotations: doc.plan.fieldRotations.map((assignment) => ({

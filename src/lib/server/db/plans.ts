@@ -1,5 +1,7 @@
-import { and, asc, desc, eq, sql } from 'drizzle-orm';
+import { and, asc, desc, eq, inArray, sql } from 'drizzle-orm';
 import type { Herd, PlanAdjustment } from '$lib/schemas/plan-file';
+import { cropPractices, fields } from './schema';
+import type { StoredAdjustment } from './schema/plans';
 import { insertAuditEntry } from './audit';
 import type { Db, Tx } from './client';
 import { isRowId } from './keys';
@@ -15,7 +17,7 @@ export interface NewPlan {
 	startYear: number;
 	years: number;
 	assumptions: string[];
-	adjustments: PlanAdjustment[];
+	adjustments: StoredAdjustment[];
 	herd: Herd | null;
 	notes: string;
 	fieldRotations: { fieldId: string; rotationId: string; startingPhase: number }[];
@@ -75,7 +77,7 @@ export interface PlanVersionContent {
 	startYear: number;
 	years: number;
 	assumptions: string[];
-	adjustments: PlanAdjustment[];
+	adjustments: StoredAdjustment[];
 	herd: Herd | null;
 	notes: string;
 	fieldRotations: { fieldId: string; rotationId: string; startingPhase: number }[];
@@ -103,9 +105,10 @@ export async function findPlanVersion(db: Db | Tx, planId: string, version: numb
 		}
 	});
 	if (!row) return undefined;
-	const { assignments, ...rest } = row;
+	const { assignments, adjustments, ...rest } = row;
 	return {
 		...rest,
+		adjustments: await adjustmentsByKey(db, adjustments),
 		fieldRotations: assignments
 			.map((a) => ({
 				fieldId: a.field.key,
@@ -114,6 +117,61 @@ export async function findPlanVersion(db: Db | Tx, planId: string, version: numb
 			}))
 			.sort((a, b) => a.fieldId.localeCompare(b.fieldId))
 	};
+}
+
+/** Stored adjustments as the plan file states them: fields and practices by their keys now. */
+async function adjustmentsByKey(
+	db: Db | Tx,
+	stored: StoredAdjustment[]
+): Promise<PlanAdjustment[]> {
+	if (!stored.length) return [];
+	const ids = (pick: (a: StoredAdjustment) => string | undefined) =>
+		stored.map(pick).filter((id): id is string => id !== undefined);
+	const [fieldRows, practiceRows] = await Promise.all([
+		keysOf(
+			db,
+			fields,
+			ids((a) => a.fieldRowId)
+		),
+		keysOf(
+			db,
+			cropPractices,
+			ids((a) => a.practiceRowId)
+		)
+	]);
+	// A field or practice deleted since must not widen the change to every one: it names a key that no
+	// farm part has, which the plan file's checks refuse.
+	return stored.map(({ fieldRowId, practiceRowId, ...change }) => ({
+		...(fieldRowId === undefined
+			? {}
+			: { fieldId: fieldRows.get(fieldRowId) ?? 'a-deleted-field' }),
+		...(practiceRowId === undefined
+			? {}
+			: { practiceId: practiceRows.get(practiceRowId) ?? 'a-deleted-practice' }),
+		...change
+	}));
+}
+
+async function keysOf(db: Db | Tx, table: typeof fields | typeof cropPractices, ids: string[]) {
+	if (!ids.length) return new Map<string, string>();
+	const rows = await db
+		.select({ id: table.id, key: table.key })
+		.from(table)
+		.where(inArray(table.id, ids));
+	return new Map(rows.map((r) => [r.id, r.key]));
+}
+
+/** Plan-file adjustments with their fields and practices by row id (keys the maps lack are dropped). */
+export function storedAdjustments(
+	adjustments: PlanAdjustment[],
+	fieldIds: Map<string, string>,
+	practiceIds: Map<string, string>
+): StoredAdjustment[] {
+	return adjustments.map(({ fieldId, practiceId, ...change }) => ({
+		...(fieldId === undefined ? {} : { fieldRowId: fieldIds.get(fieldId) }),
+		...(practiceId === undefined ? {} : { practiceRowId: practiceIds.get(practiceId) }),
+		...change
+	}));
 }
 
 /** Every version of a plan, newest first, with who saved it, when and what they said. */

@@ -15,6 +15,11 @@ import {
 	uuid
 } from 'drizzle-orm/pg-core';
 import type { Herd, PlanAdjustment } from '../../../schemas/plan-file';
+
+export type StoredAdjustment = Omit<PlanAdjustment, 'fieldId' | 'practiceId'> & {
+	fieldRowId?: string;
+	practiceRowId?: string;
+};
 import { users } from './auth';
 import { timestamps } from './columns';
 import { farmReference, farms } from './farms';
@@ -60,8 +65,11 @@ export const planVersions = pgTable(
 		years: smallint().notNull(),
 		/** Plain statements shown with the results. */
 		assumptions: jsonb().$type<string[]>().notNull().default([]),
-		/** The N and yield changes the plan tests, as the plan file's `plan.adjustments`. */
-		adjustments: jsonb().$type<PlanAdjustment[]>().notNull().default([]),
+		/**
+		 * The N and yield changes the plan tests, as the plan file's `plan.adjustments` but naming fields
+		 * and practices by row id, so a renamed key keeps them on the same field and practice.
+		 */
+		adjustments: jsonb().$type<StoredAdjustment[]>().notNull().default([]),
 		/**
 		 * The herd as this plan runs it (grazing season, manure credit…), starting from the farm's herd;
 		 * null: the plan keeps no cattle. Stated as the plan file's `herd`.

@@ -6,14 +6,7 @@
 ensure_node_modules
 ensure_env
 
-started_pg=0
-pg_is_running || started_pg=1
-cleanup() {
-	set +e # an exit trap keeps going: stopping PostgreSQL matters more than any one step
-	[ "$started_pg" = 1 ] && pg_stop
-	return 0
-}
-trap cleanup EXIT
+stop_pg_on_exit_if_started_here
 
 pg_start
 ensure_database "$DB_NAME"

@@ -180,3 +180,15 @@ ensure_build() {
 	say 'building the app'
 	npx vite build --logLevel error
 }
+
+# A script that may start PostgreSQL stops it again on exit, but only when it was not running before.
+stop_pg_on_exit_if_started_here() {
+	started_pg=0
+	pg_is_running || started_pg=1
+	trap stop_pg_if_started_here EXIT
+}
+stop_pg_if_started_here() {
+	set +e # an exit trap keeps going: stopping PostgreSQL matters more than any one step
+	[ "$started_pg" = 1 ] && pg_stop
+	return 0
+}

@@ -5,7 +5,6 @@ import {
 	type PlanDocument,
 	type PlanDocumentInput
 } from '$lib/schemas/plan-file';
-import { insertAuditEntry } from './audit';
 import type { Db, Tx } from './client';
 import { exportCropPractices, insertCropPractices } from './crop-practices';
 import { exportCrops, insertCrops } from './crops';
@@ -14,7 +13,7 @@ import { exportFieldOperations, insertFieldOperations } from './field-operations
 import { insertFields, listFields } from './fields';
 import { insertHerd } from './herds';
 import { exportPeople, insertPeople } from './people';
-import { findPlanVersion, insertPlan, storedAdjustments } from './plans';
+import { createPlan, findPlanVersion, storedAdjustments } from './plans';
 import { exportPriceSets, insertPriceSets } from './price-sets';
 import { exportRotations, insertRotations } from './rotations';
 import { plans, type farms } from './schema';
@@ -42,30 +41,27 @@ export async function importPlanDocument(
 	const operationIds = await insertFieldOperations(tx, farmId, doc.operations);
 	const practiceIds = await insertCropPractices(tx, farmId, doc.practices, operationIds);
 	const rotationIds = await insertRotations(tx, farmId, doc.rotations, practiceIds);
-	const saved = await insertPlan(tx, {
+	return createPlan(tx, {
 		farmId,
 		userId,
 		name: doc.plan.name,
 		isReference,
-		startYear: doc.plan.horizon.startYear,
-		years: doc.plan.horizon.years,
-		assumptions: doc.plan.assumptions,
-		adjustments: storedAdjustments(doc.plan.adjustments, fieldIds, practiceIds),
-		herd: doc.herd,
-		notes: doc.notes,
-		fieldRotations: doc.plan.fieldRotations.map((assignment) => ({
-			fieldId: fieldIds.get(assignment.fieldId)!,
-			rotationId: rotationIds.get(assignment.rotationId)!,
-			startingPhase: assignment.startingPhase
-		}))
-	});
-	await insertAuditEntry(tx, {
-		farmId,
-		userId,
 		action: 'plan.imported',
-		detail: { planId: saved.planId, name: doc.plan.name }
+		changeNote: '',
+		content: {
+			startYear: doc.plan.horizon.startYear,
+			years: doc.plan.horizon.years,
+			assumptions: doc.plan.assumptions,
+			adjustments: storedAdjustments(doc.plan.adjustments, fieldIds, practiceIds),
+			herd: doc.herd,
+			notes: doc.notes,
+			fieldRotations: doc.plan.fieldRotations.map((assignment) => ({
+				fieldId: fieldIds.get(assignment.fieldId)!,
+				rotationId: rotationIds.get(assignment.rotationId)!,
+				startingPhase: assignment.startingPhase
+			}))
+		}
 	});
-	return saved;
 }
 
 /**

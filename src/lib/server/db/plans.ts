@@ -1,62 +1,11 @@
 import { and, asc, desc, eq, inArray, sql } from 'drizzle-orm';
 import type { Herd, PlanAdjustment } from '$lib/schemas/plan-file';
-import { cropPractices, fields } from './schema';
 import type { StoredAdjustment } from './schema/plans';
 import { insertAuditEntry } from './audit';
 import type { Db, Tx } from './client';
 import { isRowId } from './keys';
 import { lockFarm } from './people';
-import { planFieldAssignments, plans, planVersions, users } from './schema';
-
-/** A new plan as version 1: its horizon, the herd it runs, and a rotation for each field (row ids). */
-export interface NewPlan {
-	farmId: string;
-	userId: string | null;
-	name: string;
-	isReference: boolean;
-	startYear: number;
-	years: number;
-	assumptions: string[];
-	adjustments: StoredAdjustment[];
-	herd: Herd | null;
-	notes: string;
-	fieldRotations: { fieldId: string; rotationId: string; startingPhase: number }[];
-}
-
-/** Saves a plan, its first version and its field assignments in one transaction. */
-export async function insertPlan(db: Db | Tx, plan: NewPlan) {
-	return db.transaction(async (tx) => {
-		const [row] = await tx
-			.insert(plans)
-			.values({
-				farmId: plan.farmId,
-				name: plan.name,
-				isReference: plan.isReference,
-				createdById: plan.userId
-			})
-			.returning({ id: plans.id });
-		const [version] = await tx
-			.insert(planVersions)
-			.values({
-				planId: row.id,
-				version: 1,
-				startYear: plan.startYear,
-				years: plan.years,
-				assumptions: plan.assumptions,
-				adjustments: plan.adjustments,
-				herd: plan.herd,
-				notes: plan.notes,
-				savedById: plan.userId
-			})
-			.returning({ id: planVersions.id });
-		if (plan.fieldRotations.length) {
-			await tx
-				.insert(planFieldAssignments)
-				.values(plan.fieldRotations.map((a) => ({ ...a, planVersionId: version.id })));
-		}
-		return { planId: row.id, planVersionId: version.id };
-	});
-}
+import { cropPractices, fields, planFieldAssignments, plans, planVersions, users } from './schema';
 
 /** The farm's plans by name, with the current version's horizon. */
 export async function listPlansByFarm(db: Db | Tx, farmId: string) {
@@ -273,7 +222,10 @@ export async function savePlanVersion(
 	});
 }
 
-/** A new plan as version 1 from a plan's content (a copy, or a plan made in the editor). */
+/**
+ * A new plan as version 1 from a plan's content (a copy, a plan made in the editor, or an imported plan
+ * file, audited as such), with its field assignments and audit entry in one transaction.
+ */
 export async function createPlan(
 	db: Db | Tx,
 	plan: {
@@ -282,18 +234,25 @@ export async function createPlan(
 		name: string;
 		content: PlanVersionContent;
 		changeNote: string;
+		isReference?: boolean;
+		action?: 'plan.created' | 'plan.imported';
 	}
 ) {
 	return db.transaction(async (tx) => {
 		const [row] = await tx
 			.insert(plans)
-			.values({ farmId: plan.farmId, name: plan.name, createdById: plan.userId })
+			.values({
+				farmId: plan.farmId,
+				name: plan.name,
+				isReference: plan.isReference ?? false,
+				createdById: plan.userId
+			})
 			.returning({ id: plans.id });
 		await insertVersion(tx, row.id, 1, plan.userId, plan.content, { changeNote: plan.changeNote });
 		await insertAuditEntry(tx, {
 			farmId: plan.farmId,
 			userId: plan.userId,
-			action: 'plan.created',
+			action: plan.action ?? 'plan.created',
 			detail: { planId: row.id, name: plan.name }
 		});
 		return { planId: row.id, version: 1 };

@@ -382,7 +382,11 @@ export const priceSetSchema = z.strictObject({
 		.default({})
 });
 
-/** What a plan tries on top of its practices: lower N, a yield it expects (test years, not agronomy). */
+/**
+ * What a plan tries on top of its practices: lower N, a yield it expects (test years, not agronomy).
+ * The bounds catch slips, not agronomy: ±300 lb N/ac spans any corn rate and −90…+100 % any yield year
+ * (common practice, no published source).
+ */
 export const planAdjustmentSchema = z.strictObject({
 	practiceId: id('the practice id')
 		.optional()

@@ -13,6 +13,7 @@ ensure_database "$DB_NAME"
 npx tsx scripts/db/migrate.ts >/dev/null
 npx tsx scripts/db/seed-demo.ts >/dev/null
 ensure_chromium
+ensure_glpsol
 ensure_build
 
 npx tsx scripts/bench.ts

@@ -19,6 +19,7 @@ export DATABASE_URL=$TEST_DATABASE_URL
 npx tsx scripts/db/migrate.ts
 npx tsx scripts/db/seed-demo.ts
 ensure_chromium
+ensure_glpsol
 ensure_build
 
 say 'tests'

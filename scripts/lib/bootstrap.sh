@@ -171,6 +171,11 @@ ensure_chromium() {
 	[ -x /usr/bin/chromium ] || apt_install chromium
 }
 
+# GLPK's glpsol: the independent solver the optimiser's tests and bench check HiGHS against.
+ensure_glpsol() {
+	command -v glpsol >/dev/null || apt_install glpk-utils
+}
+
 # Builds the app unless the build is newer than every source file.
 ensure_build() {
 	if [ -f build/handler.js ] &&

@@ -14,6 +14,8 @@ import { nonFiniteNumberPaths } from './finite';
 import { partialBudget, yearItems, type PartialBudget, type YearItems } from './partial-budget';
 import { yearPrices } from './prices';
 
+export { creditsForNextYear } from './field-year';
+
 export type { FarmYearResult } from './farm-year';
 export type { FieldYearResult, NitrogenLedger, OperationResult } from './field-year';
 export { summarisePlan } from './plan-summary';
@@ -49,52 +51,93 @@ function planYears(plan: PlanDocument): number[] {
 	return Array.from({ length: years }, (_, i) => startYear + i);
 }
 
+/** The plan's parts by id, built once per evaluation. */
+export interface PlanLookups {
+	practiceById: Map<string, PlanDocument['practices'][number]>;
+	operationsById: Map<string, PlanDocument['operations'][number]>;
+	cropById: Map<string, PlanDocument['crops'][number]>;
+	pricesByYear: Map<number, ReturnType<typeof yearPrices>>;
+}
+
+export function planLookups(plan: PlanDocument): PlanLookups {
+	return {
+		practiceById: new Map(plan.practices.map((p) => [p.id, p])),
+		operationsById: new Map(plan.operations.map((o) => [o.id, o])),
+		cropById: new Map(plan.crops.map((c) => [c.id, c])),
+		pricesByYear: new Map(plan.priceSets.map((p) => [p.year, yearPrices(p)]))
+	};
+}
+
+type Rotation = PlanDocument['rotations'][number];
+type Field = PlanDocument['fields'][number];
+
+/** The credits a field starts the plan with: its prior crop's, nothing from covers or manure yet. */
+export function startingCredits(field: Field): CarriedCredits {
+	return {
+		priorCropCreditLbPerAcre: field.priorCropNitrogenCreditLbPerAcre,
+		coverCreditLbPerAcre: 0,
+		manureCreditLbPerAcre: 0
+	};
+}
+
+/** One field's year `yearIndex` of the plan under `rotation`, started at `startingPhase` (1 = first). */
+export function evaluateFieldInYear(
+	plan: PlanDocument,
+	lookups: PlanLookups,
+	field: Field,
+	rotation: Rotation,
+	startingPhase: number,
+	yearIndex: number,
+	credits: CarriedCredits
+) {
+	const year = plan.plan.horizon.startYear + yearIndex;
+	const phase = (startingPhase - 1 + yearIndex) % rotation.practices.length;
+	const stated = lookups.practiceById.get(rotation.practices[phase])!;
+	const adjustment = adjustmentFor(plan.plan.adjustments, field.id, stated.id);
+	const practice = adjustedPractice(stated, adjustment);
+	const result = evaluateFieldYear({
+		field,
+		year,
+		rotationId: rotation.id,
+		practice,
+		nitrogenChangeLbPerAcre: adjustment.nitrogenChangeLbPerAcre,
+		crop: lookups.cropById.get(practice.crop)!,
+		prices: lookups.pricesByYear.get(year)!,
+		herd: plan.herd,
+		operationsById: lookups.operationsById,
+		interestRatePercent: plan.farm.interestRatePercent,
+		credits
+	});
+	return { result, practice };
+}
+
 /** Every field-year and farm-year; with `budgeted`, also each year's items for a partial budget. */
 function evaluateYears(plan: PlanDocument, budgeted: boolean) {
-	const practiceById = new Map(plan.practices.map((p) => [p.id, p]));
+	const lookups = planLookups(plan);
 	const rotationById = new Map(plan.rotations.map((r) => [r.id, r]));
-	const operationsById = new Map(plan.operations.map((o) => [o.id, o]));
-	const cropById = new Map(plan.crops.map((c) => [c.id, c]));
-	const priceSetByYear = new Map(plan.priceSets.map((p) => [p.year, p]));
 	const assignmentByField = new Map(plan.plan.fieldRotations.map((a) => [a.fieldId, a]));
 	const credits = new Map<string, CarriedCredits>(
-		plan.fields.map((f) => [
-			f.id,
-			{
-				priorCropCreditLbPerAcre: f.priorCropNitrogenCreditLbPerAcre,
-				coverCreditLbPerAcre: 0,
-				manureCreditLbPerAcre: 0
-			}
-		])
+		plan.fields.map((f) => [f.id, startingCredits(f)])
 	);
 
 	const fieldYears: FieldYearResult[] = [];
 	const farmYears: FarmYearResult[] = [];
 	const items: { year: number; items: YearItems }[] = [];
 	for (const [i, year] of planYears(plan).entries()) {
-		const prices = yearPrices(priceSetByYear.get(year)!);
+		const prices = lookups.pricesByYear.get(year)!;
 		const thisYear: FieldYearResult[] = [];
 		const practices: PlanDocument['practices'] = [];
 		for (const field of plan.fields) {
 			const assignment = assignmentByField.get(field.id)!;
-			const rotation = rotationById.get(assignment.rotationId)!;
-			const phase = (assignment.startingPhase - 1 + i) % rotation.practices.length;
-			const stated = practiceById.get(rotation.practices[phase])!;
-			const adjustment = adjustmentFor(plan.plan.adjustments, field.id, stated.id);
-			const practice = adjustedPractice(stated, adjustment);
-			const result = evaluateFieldYear({
+			const { result, practice } = evaluateFieldInYear(
+				plan,
+				lookups,
 				field,
-				year,
-				rotationId: rotation.id,
-				practice,
-				nitrogenChangeLbPerAcre: adjustment.nitrogenChangeLbPerAcre,
-				crop: cropById.get(practice.crop)!,
-				prices,
-				herd: plan.herd,
-				operationsById,
-				interestRatePercent: plan.farm.interestRatePercent,
-				credits: credits.get(field.id)!
-			});
+				rotationById.get(assignment.rotationId)!,
+				assignment.startingPhase,
+				i,
+				credits.get(field.id)!
+			);
 			thisYear.push(result);
 			practices.push(practice);
 		}

@@ -55,7 +55,9 @@ export const optimiseLimitsSchema = z.strictObject({
 		})
 		.nullable()
 		.default(null)
-		.describe('A cap on the family hours in a span of months, each year (the trade-off sweeps it).'),
+		.describe(
+			'A cap on the family hours in a span of months, each year (the trade-off sweeps it).'
+		),
 	nitrogenPurchasedLbPerYear: amount('the purchased N limit', {
 		min: 0,
 		max: 100_000_000,

@@ -20,13 +20,18 @@ export const statusWords = new Map<OptimiseStatus, string>([
 /** Advice for a conflicting limit, by the model row's name (`family_labour_2027_10`, `nitrogen_2028`). */
 export function conflictAdvice(name: string): string {
 	if (name.startsWith('family_labour')) {
-		return 'Allow more family hours in that month, or let hired help take more of the work.';
+		return 'Allow more family hours in those months, or take off a weight that spares them.';
 	}
-	if (name.startsWith('nitrogen')) return 'Allow more purchased N, or allow more legume years.';
+	if (name === 'hired')
+		return "Allow more family hours, or add hired help on the farm's people page.";
+	if (name.startsWith('nitrogen'))
+		return 'Allow more purchased N, or allow rotations with a legume year.';
 	if (name.startsWith('diesel')) return 'Allow more diesel, or allow rotations with fewer passes.';
 	if (name.startsWith('crop')) return 'Widen the crop limit, or allow more rotations.';
-	if (name.startsWith('fixed')) return 'Let the optimiser choose that field, or its rotation year.';
-	if (name.startsWith('forage')) return 'Allow rotations that grow more forage, or buy more hay.';
+	if (name.startsWith('field')) {
+		return 'Let the optimiser choose this field, or allow a rotation that suits it.';
+	}
+	if (name.startsWith('forage')) return 'Allow rotations that grow forage or grazing for the herd.';
 	return 'Loosen this limit or leave it out.';
 }
 

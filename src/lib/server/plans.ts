@@ -141,6 +141,18 @@ export async function findDraft(db: Db | Tx, plan: PlanRow, version = plan.curre
 	return stored && draftOfVersion(plan.name, stored);
 }
 
+/** The plan's newest version as the plan file it makes on its farm, or the 422 saying why it cannot. */
+export async function storedPlanDocument(
+	db: Db | Tx,
+	farm: Farm,
+	plan: PlanRow
+): Promise<{ ok: true; document: PlanDocument } | { ok: false; response: Response }> {
+	const draft = await findDraft(db, plan);
+	const checked = draft ? await checkDraft(db, farm, draft) : null;
+	if (checked?.ok) return checked;
+	return refused('The plan is not valid.', checked?.issues ?? []);
+}
+
 export type ResultsAnswer =
 	{ ok: true; result: PlanResult | PlanSummary } | { ok: false; response: Response };
 

@@ -56,14 +56,16 @@ function sweptValue(request: TradeOffRequest, year: OptimisedYear): number {
 }
 
 /**
- * A trade-off curve: the limit swept from `from` to `to`, each point solved in turn on one model;
- * `send` hears progress, each point, then where the plan as it stands falls.
+ * A trade-off curve: the limit swept from `from` to `to`, each point solved in turn on one model.
+ * Options that do not fit the plan are refused at once; otherwise `run` solves, and `send` hears
+ * progress, each point, then where the plan as it stands falls.
  */
-export async function tradeOffCurve(
+export function tradeOffCurve(
 	plan: PlanDocument,
-	request: TradeOffRequest,
-	send: (line: TradeOffLine) => void
-): Promise<{ ok: true } | { ok: false; issues: FieldIssue[] }> {
+	request: TradeOffRequest
+):
+	| { ok: true; run: (send: (line: TradeOffLine) => void) => Promise<void> }
+	| { ok: false; issues: FieldIssue[] } {
 	const { sweep } = request;
 	const options: OptimiseOptions = {
 		...request.options,
@@ -86,29 +88,31 @@ export async function tradeOffCurve(
 		{ length: sweep.points },
 		(_, k) => sweep.from + ((sweep.to - sweep.from) * k) / (sweep.points - 1)
 	);
-	send({ type: 'progress', done: 0, total: limits.length });
-	let done = 0;
-	await sweepWithHighs(
-		toCsr(farm.model),
-		rows,
-		limits.map((limit) => offsets.map((offset) => limit - offset)),
-		options.timeLimitSeconds,
-		(index, answer) => {
-			send({
-				type: 'point',
-				index,
-				point: { limit: limits[index], result: interpretAnswer(farm, answer) }
-			});
-			send({ type: 'progress', done: ++done, total: limits.length });
-		}
-	);
-	const current = currentPlan(plan);
-	send({
-		type: 'done',
-		current: {
-			limit: Math.max(...current.years.map((y) => sweptValue(request, y))),
-			netReturnUsd: current.netReturnUsd
-		}
-	});
-	return { ok: true };
+	const run = async (send: (line: TradeOffLine) => void) => {
+		send({ type: 'progress', done: 0, total: limits.length });
+		let done = 0;
+		await sweepWithHighs(
+			toCsr(farm.model),
+			rows,
+			limits.map((limit) => offsets.map((offset) => limit - offset)),
+			options.timeLimitSeconds,
+			(index, answer) => {
+				send({
+					type: 'point',
+					index,
+					point: { limit: limits[index], result: interpretAnswer(farm, answer) }
+				});
+				send({ type: 'progress', done: ++done, total: limits.length });
+			}
+		);
+		const current = currentPlan(plan);
+		send({
+			type: 'done',
+			current: {
+				limit: Math.max(...current.years.map((y) => sweptValue(request, y))),
+				netReturnUsd: current.netReturnUsd
+			}
+		});
+	};
+	return { ok: true, run };
 }

@@ -71,6 +71,11 @@ const planScreens: [string, () => string, { shows: string; atLeast: number }][] 
 		{ shows: '[data-testid="partial-budget"]', atLeast: 1 }
 	],
 	[
+		'optimiser page',
+		() => `${farmPath}/plans/${referencePlanId}/optimise`,
+		{ shows: 'form[aria-labelledby="limits-heading"]', atLeast: 1 }
+	],
+	[
 		'compare page',
 		() => `${farmPath}/plans/compare?plans=${referencePlanId},${alternativePlanId}`,
 		{ shows: '[data-testid="partial-budget"]', atLeast: 1 }

@@ -100,6 +100,9 @@ export const optimiseWeightsSchema = z.strictObject({
 export const optimiseOptionsSchema = z.strictObject({
 	wholeFields: z.boolean({ error: 'Whole fields is yes or no.' }).default(false),
 	timeLimitSeconds: amount('the time limit', { above: 0, max: 60, unit: 'seconds' }).default(10),
+	gapPercent: percent('the gap to stop at', { max: 10 })
+		.default(0.1)
+		.describe('Whole fields: stop once the answer is within this much of the best possible.'),
 	limits: optimiseLimitsSchema.default(() => optimiseLimitsSchema.parse({})),
 	weights: optimiseWeightsSchema.default(() => optimiseWeightsSchema.parse({}))
 });

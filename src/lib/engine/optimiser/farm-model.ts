@@ -39,10 +39,12 @@ export type ColumnRole =
 	| { kind: 'choice'; choice: number }
 	| { kind: 'grazing'; yearIndex: number; month: number }
 	| { kind: 'hay'; yearIndex: number }
-	| { kind: 'hired'; personIndex: number; yearIndex: number; month: number };
+	| { kind: 'work'; yearIndex: number; month: number }
+	| { kind: 'hired'; wageUsdPerHour: number; yearIndex: number; month: number };
 
 export type RowRole =
 	| { kind: 'field'; fieldIndex: number }
+	| { kind: 'work'; yearIndex: number; month: number }
 	| { kind: 'family-labour'; yearIndex: number; month: number }
 	| { kind: 'hired-within-work'; yearIndex: number; month: number }
 	| { kind: 'family-span'; yearIndex: number; months: number[] }
@@ -239,8 +241,7 @@ export function buildFarmModel(plan: PlanDocument, options: OptimiseOptions): Bu
 						sum +
 						y.netReturnUsd -
 						weights.nitrogenUsdPerLb * y.nitrogenPurchasedLb -
-						weights.dieselUsdPerGallon * y.dieselGallons -
-						weights.familyLabourUsdPerHour * y.labourHours,
+						weights.dieselUsdPerGallon * y.dieselGallons,
 					0
 				);
 				const column = addColumn(
@@ -293,10 +294,7 @@ export function buildFarmModel(plan: PlanDocument, options: OptimiseOptions): Bu
 						{ kind: 'grazing', yearIndex: y, month: segment.month },
 						{
 							name: `grazing_${year}_${monthNumber(segment.month)}_${k + 1}`,
-							cost:
-								saving +
-								weights.familyLabourUsdPerHour * choreHoursSavedPerAuDay +
-								weights.grazingUsdPerAuDay,
+							cost: saving + weights.grazingUsdPerAuDay,
 							lower: 0,
 							upper: units * grazingDays,
 							integer: false
@@ -323,27 +321,48 @@ export function buildFarmModel(plan: PlanDocument, options: OptimiseOptions): Bu
 		});
 	}
 
-	// Hired help: hours each month up to what each hired person has, at their wage.
-	const hired = plan.people
-		.map((person, personIndex) => ({ person, personIndex }))
-		.filter(({ person }) => person.role === 'hired');
+	// All the work of each month (field work and chores), the family's and hired: a column, so the
+	// dense sum over every choice is written once and the labour limits are short rows on it.
+	const workColumns = years.map((year, y) =>
+		Array.from({ length: 12 }, (_, m) =>
+			addColumn(
+				{ kind: 'work', yearIndex: y, month: m },
+				{
+					name: `work_${year}_${monthNumber(m)}`,
+					// The value the couple put on an hour of their own; hired hours get it back below.
+					cost: -weights.familyLabourUsdPerHour,
+					lower: 0,
+					upper: Infinity,
+					integer: false
+				},
+				years.map(() => 0)
+			)
+		)
+	);
+
+	// Hired help, pooled by wage: hours each month up to what the hired people at that wage have.
+	const hiredByWage = new Map<number, number[]>();
+	for (const person of plan.people) {
+		if (person.role !== 'hired') continue;
+		const wage = person.wageUsdPerHour ?? 0;
+		const hours = hiredByWage.get(wage) ?? new Array<number>(12).fill(0);
+		person.hoursAvailableByMonth.forEach((h, m) => (hours[m] += h));
+		hiredByWage.set(wage, hours);
+	}
 	const hiredColumns = years.map(() => Array.from({ length: 12 }, () => [] as number[]));
 	years.forEach((year, y) => {
-		for (const { person, personIndex } of hired) {
+		for (const [wage, hours] of hiredByWage) {
 			for (let m = 0; m < 12; m++) {
-				if (person.hoursAvailableByMonth[m] <= 0) continue;
+				if (hours[m] <= 0) continue;
 				hiredColumns[y][m].push(
 					addColumn(
-						{ kind: 'hired', personIndex, yearIndex: y, month: m },
+						{ kind: 'hired', wageUsdPerHour: wage, yearIndex: y, month: m },
 						{
-							name: `hired_${lpName(person.id)}_${year}_${monthNumber(m)}`,
+							name: `hired_at_${wage}_usd_${year}_${monthNumber(m)}`,
 							// The budgets charge every hour at the labour rate; a hired hour costs its wage.
-							cost:
-								prices[y].labourUsdPerHour -
-								(person.wageUsdPerHour ?? 0) +
-								weights.familyLabourUsdPerHour,
+							cost: prices[y].labourUsdPerHour - wage + weights.familyLabourUsdPerHour,
 							lower: 0,
-							upper: person.hoursAvailableByMonth[m],
+							upper: hours[m],
 							integer: false
 						},
 						years.map(() => 0)
@@ -353,11 +372,7 @@ export function buildFarmModel(plan: PlanDocument, options: OptimiseOptions): Bu
 		}
 	});
 
-	const choreConstant =
-		herd && units > 0 ? herd.feedingSeasonDays * herd.choreHoursPerDayFeedingHay : 0;
-	builder.offset =
-		netReturnConstantUsdByYear.reduce((a, b) => a + b, 0) -
-		weights.familyLabourUsdPerHour * choreConstant * years.length;
+	builder.offset = netReturnConstantUsdByYear.reduce((a, b) => a + b, 0);
 
 	// Rows. Each field is farmed whole, split between its choices.
 	plan.fields.forEach((field, fieldIndex) => {
@@ -369,23 +384,34 @@ export function buildFarmModel(plan: PlanDocument, options: OptimiseOptions): Bu
 		);
 	});
 
-	// Work each month less hired hours: the family's, within their hours (chores on hay days moved right).
+	// Each month's work: the choices' field work, and chores (every season day a hay day, less what
+	// grazing saves), the hay-day chores being the constant on the right.
 	const familyHours =
 		limits.familyLabourHoursByMonth ??
 		(plan.people.length ? familyHoursByMonth(plan.people) : plan.farm.labourHoursAvailableByMonth);
 	const familyWork = (y: number, m: number): [number, number][] => [
-		...choices.map((c): [number, number] => [c.column, c.years[y].labourHoursByMonth[m]]),
-		...grazingColumns[y]
-			.filter((g) => g.month === m)
-			.map((g): [number, number] => [g.column, -choreHoursSavedPerAuDay]),
+		[workColumns[y][m], 1],
 		...hiredColumns[y][m].map((column): [number, number] => [column, -1])
 	];
 	years.forEach((year, y) => {
 		for (let m = 0; m < 12; m++) {
+			const work = addRow(
+				{ kind: 'work', yearIndex: y, month: m },
+				`work_in_${year}_${monthNumber(m)}`,
+				{ lower: -baseChoreHours[y][m], upper: -baseChoreHours[y][m] },
+				[
+					...choices.map((c): [number, number] => [c.column, c.years[y].labourHoursByMonth[m]]),
+					...grazingColumns[y]
+						.filter((g) => g.month === m)
+						.map((g): [number, number] => [g.column, -choreHoursSavedPerAuDay]),
+					[workColumns[y][m], -1]
+				]
+			);
+			rowLimits[work] = baseChoreHours[y][m];
 			addRow(
 				{ kind: 'family-labour', yearIndex: y, month: m },
 				`family_labour_${year}_${monthNumber(m)}`,
-				{ upper: familyHours[m] - baseChoreHours[y][m], limit: familyHours[m] },
+				{ upper: familyHours[m] },
 				familyWork(y, m)
 			);
 			// No more hired hours than there is work: the rest would be paid for nothing.
@@ -393,7 +419,7 @@ export function buildFarmModel(plan: PlanDocument, options: OptimiseOptions): Bu
 				addRow(
 					{ kind: 'hired-within-work', yearIndex: y, month: m },
 					`hired_within_work_${year}_${monthNumber(m)}`,
-					{ upper: baseChoreHours[y][m] },
+					{ upper: 0 },
 					familyWork(y, m).map(([column, value]): [number, number] => [column, -value])
 				);
 			}
@@ -404,10 +430,7 @@ export function buildFarmModel(plan: PlanDocument, options: OptimiseOptions): Bu
 			addRow(
 				{ kind: 'family-span', yearIndex: y, months },
 				`family_labour_span_${year}`,
-				{
-					upper: span.maxHours - months.reduce((sum, m) => sum + baseChoreHours[y][m], 0),
-					limit: span.maxHours
-				},
+				{ upper: span.maxHours },
 				months.flatMap((m) => familyWork(y, m))
 			);
 		}

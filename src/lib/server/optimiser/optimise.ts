@@ -21,7 +21,7 @@ export async function optimisePlan(
 ): Promise<Optimised> {
 	const built = buildFarmModel(plan, options);
 	if (!built.ok) return built;
-	const answer = await solveWithHighs(toCsr(built.farm.model), options.timeLimitSeconds);
+	const answer = await solveWithHighs(toCsr(built.farm.model), options);
 	return { ok: true, result: interpretAnswer(built.farm, answer), farm: built.farm };
 }
 
@@ -95,7 +95,7 @@ export function tradeOffCurve(
 			toCsr(farm.model),
 			rows,
 			limits.map((limit) => offsets.map((offset) => limit - offset)),
-			options.timeLimitSeconds,
+			options,
 			(index, answer) => {
 				send({
 					type: 'point',

@@ -5,7 +5,7 @@ import { familyHoursByMonth } from '../../schemas/plan-file';
 import { creditsForNextYear } from '../field-year';
 import { animalUnits } from '../forage';
 import { evaluateFieldInYear, planLookups, startingCredits } from '../index';
-import { ModelBuilder, type LinearModel } from './linear-model';
+import { ModelBuilder, RowEntries, type LinearModel } from './linear-model';
 
 /**
  * The whole-farm model: how much of each field goes under each rotation from each starting phase,
@@ -184,6 +184,22 @@ function evaluateChoice(
 	return years;
 }
 
+/** Every cost, coefficient and finite bound a number (bounds may be infinite: no bound). */
+function isFinite(model: LinearModel): boolean {
+	const ok = (n: number) => Number.isFinite(n);
+	const bound = (n: number) => !Number.isNaN(n);
+	return (
+		Number.isFinite(model.offset) &&
+		model.columns.every((c) => ok(c.cost) && bound(c.lower) && bound(c.upper)) &&
+		model.rows.every((r) => bound(r.lower) && bound(r.upper) && r.values.every(ok))
+	);
+}
+
+/** A row's entries on items that each own a column: choices, grazing months. */
+function entriesOf<T extends { column: number }>(items: T[], value: (item: T) => number) {
+	return new RowEntries().append(items, value);
+}
+
 /** Builds the farm model for a validated plan and options; issues name options that do not fit it. */
 export function buildFarmModel(plan: PlanDocument, options: OptimiseOptions): BuiltModel {
 	const issues = checkOptions(plan, options);
@@ -214,7 +230,7 @@ export function buildFarmModel(plan: PlanDocument, options: OptimiseOptions): Bu
 		role: RowRole,
 		name: string,
 		bounds: { lower?: number; upper?: number; limit?: number },
-		entries: Iterable<[number, number]>
+		entries: RowEntries
 	) => {
 		rowRoles.push(role);
 		rowLimits.push(bounds.limit ?? bounds.upper ?? bounds.lower ?? 0);
@@ -380,7 +396,7 @@ export function buildFarmModel(plan: PlanDocument, options: OptimiseOptions): Bu
 			{ kind: 'field', fieldIndex },
 			`field_${lpName(field.id)}`,
 			{ lower: 1, upper: 1 },
-			choicesByField[fieldIndex].map((c) => [c.column, 1])
+			entriesOf(choicesByField[fieldIndex], () => 1)
 		);
 	});
 
@@ -389,23 +405,21 @@ export function buildFarmModel(plan: PlanDocument, options: OptimiseOptions): Bu
 	const familyHours =
 		limits.familyLabourHoursByMonth ??
 		(plan.people.length ? familyHoursByMonth(plan.people) : plan.farm.labourHoursAvailableByMonth);
-	const familyWork = (y: number, m: number): [number, number][] => [
-		[workColumns[y][m], 1],
-		...hiredColumns[y][m].map((column): [number, number] => [column, -1])
-	];
+	// Family hours: all the month's work less the hired hours (`sign` -1 for hired less work).
+	const familyWork = (y: number, m: number, sign = 1, entries = new RowEntries()) => {
+		entries.add(workColumns[y][m], sign);
+		for (const column of hiredColumns[y][m]) entries.add(column, -sign);
+		return entries;
+	};
 	years.forEach((year, y) => {
 		for (let m = 0; m < 12; m++) {
 			const work = addRow(
 				{ kind: 'work', yearIndex: y, month: m },
 				`work_in_${year}_${monthNumber(m)}`,
 				{ lower: -baseChoreHours[y][m], upper: -baseChoreHours[y][m] },
-				[
-					...choices.map((c): [number, number] => [c.column, c.years[y].labourHoursByMonth[m]]),
-					...grazingColumns[y]
-						.filter((g) => g.month === m)
-						.map((g): [number, number] => [g.column, -choreHoursSavedPerAuDay]),
-					[workColumns[y][m], -1]
-				]
+				entriesOf(choices, (c) => c.years[y].labourHoursByMonth[m])
+					.append(grazingColumns[y], (g) => (g.month === m ? -choreHoursSavedPerAuDay : 0))
+					.add(workColumns[y][m], -1)
 			);
 			rowLimits[work] = baseChoreHours[y][m];
 			addRow(
@@ -420,7 +434,7 @@ export function buildFarmModel(plan: PlanDocument, options: OptimiseOptions): Bu
 					{ kind: 'hired-within-work', yearIndex: y, month: m },
 					`hired_within_work_${year}_${monthNumber(m)}`,
 					{ upper: 0 },
-					familyWork(y, m).map(([column, value]): [number, number] => [column, -value])
+					familyWork(y, m, -1)
 				);
 			}
 		}
@@ -431,7 +445,7 @@ export function buildFarmModel(plan: PlanDocument, options: OptimiseOptions): Bu
 				{ kind: 'family-span', yearIndex: y, months },
 				`family_labour_span_${year}`,
 				{ upper: span.maxHours },
-				months.flatMap((m) => familyWork(y, m))
+				months.reduce((entries, m) => familyWork(y, m, 1, entries), new RowEntries())
 			);
 		}
 		if (limits.nitrogenPurchasedLbPerYear !== null) {
@@ -439,7 +453,7 @@ export function buildFarmModel(plan: PlanDocument, options: OptimiseOptions): Bu
 				{ kind: 'nitrogen', yearIndex: y },
 				`nitrogen_${year}`,
 				{ upper: limits.nitrogenPurchasedLbPerYear },
-				choices.map((c) => [c.column, c.years[y].nitrogenPurchasedLb])
+				entriesOf(choices, (c) => c.years[y].nitrogenPurchasedLb)
 			);
 		}
 		if (limits.dieselGallonsPerYear !== null) {
@@ -447,7 +461,7 @@ export function buildFarmModel(plan: PlanDocument, options: OptimiseOptions): Bu
 				{ kind: 'diesel', yearIndex: y },
 				`diesel_${year}`,
 				{ upper: limits.dieselGallonsPerYear },
-				choices.map((c) => [c.column, c.years[y].dieselGallons])
+				entriesOf(choices, (c) => c.years[y].dieselGallons)
 			);
 		}
 	});
@@ -467,9 +481,9 @@ export function buildFarmModel(plan: PlanDocument, options: OptimiseOptions): Bu
 				{ kind: 'crop', cropId: limit.cropId, cropName, yearIndex: y },
 				`crop_${lpName(limit.cropId)}_${year}`,
 				{ lower, upper },
-				choices
-					.filter((c) => c.years[y].cropId === limit.cropId)
-					.map((c) => [c.column, plan.fields[c.fieldIndex].acres])
+				entriesOf(choices, (c) =>
+					c.years[y].cropId === limit.cropId ? plan.fields[c.fieldIndex].acres : 0
+				)
 			);
 		});
 	}
@@ -482,18 +496,17 @@ export function buildFarmModel(plan: PlanDocument, options: OptimiseOptions): Bu
 				(1 - herd.feedingWastePercent / 100)) /
 			herd.intakeLbDmPerAuDay;
 		years.forEach((year, y) => {
-			addRow({ kind: 'grazing-offered', yearIndex: y }, `grazing_offered_${year}`, { upper: 0 }, [
-				...grazingColumns[y].map((g): [number, number] => [g.column, 1]),
-				...choices.map((c): [number, number] => [c.column, -c.years[y].grazingAuDays])
-			]);
+			addRow(
+				{ kind: 'grazing-offered', yearIndex: y },
+				`grazing_offered_${year}`,
+				{ upper: 0 },
+				entriesOf(grazingColumns[y], () => 1).append(choices, (c) => -c.years[y].grazingAuDays)
+			);
 			addRow(
 				{ kind: 'forage', yearIndex: y },
 				`forage_${year}`,
 				{ lower: units * herd.feedingSeasonDays },
-				[
-					...grazingColumns[y].map((g): [number, number] => [g.column, 1]),
-					[hayColumns[y], auDaysPerBale]
-				]
+				entriesOf(grazingColumns[y], () => 1).add(hayColumns[y], auDaysPerBale)
 			);
 		});
 	}
@@ -521,6 +534,18 @@ export function buildFarmModel(plan: PlanDocument, options: OptimiseOptions): Bu
 	}
 
 	const model = builder.build();
+	if (!isFinite(model)) {
+		return {
+			ok: false,
+			issues: [
+				{
+					path: 'plan',
+					message:
+						'The plan gives a number too large to work with under some rotation: check its yields, prices and rates.'
+				}
+			]
+		};
+	}
 	return {
 		ok: true,
 		farm: {

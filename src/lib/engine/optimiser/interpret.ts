@@ -113,13 +113,22 @@ function conflicts(farm: FarmModel, answer: SolverAnswer): LimitConflict[] {
 			case 'family-labour':
 				out.push({
 					name,
-					label: `Family hours in ${monthNames[role.month]} ${year}: at most ${figure(limit)}.`
+					label: `Family hours in ${monthNames[role.month]} ${year}: at most ${figure(limit)} hours.`
+				});
+				break;
+			case 'work':
+				out.push({
+					name,
+					label:
+						limit > 0
+							? `The work of ${monthNames[role.month]} ${year}: the herd's chores alone take ${figure(limit)} hours, field work more.`
+							: `The field work of ${monthNames[role.month]} ${year} needs hours.`
 				});
 				break;
 			case 'family-span':
 				out.push({
 					name,
-					label: `Family hours in the chosen months of ${year}: at most ${figure(limit)}.`
+					label: `Family hours in the chosen months of ${year}: at most ${figure(limit)} hours.`
 				});
 				break;
 			case 'nitrogen':

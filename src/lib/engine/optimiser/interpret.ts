@@ -121,7 +121,7 @@ function conflicts(farm: FarmModel, answer: SolverAnswer): LimitConflict[] {
 					name,
 					label:
 						limit > 0
-							? `The work of ${monthNames[role.month]} ${year}: the herd's chores alone take ${figure(limit)} hours, field work more.`
+							? `The work of ${monthNames[role.month]} ${year}: the herd's chores take ${figure(limit)} hours, besides any field work.`
 							: `The field work of ${monthNames[role.month]} ${year} needs hours.`
 				});
 				break;

@@ -5,7 +5,7 @@ import { familyHoursByMonth } from '../../schemas/plan-file';
 import { creditsForNextYear } from '../field-year';
 import { animalUnits } from '../forage';
 import { evaluateFieldInYear, planLookups, startingCredits } from '../index';
-import { ModelBuilder, type LinearModel } from './linear-model';
+import { ModelBuilder, RowEntries, type LinearModel } from './linear-model';
 
 /**
  * The whole-farm model: how much of each field goes under each rotation from each starting phase,
@@ -39,10 +39,12 @@ export type ColumnRole =
 	| { kind: 'choice'; choice: number }
 	| { kind: 'grazing'; yearIndex: number; month: number }
 	| { kind: 'hay'; yearIndex: number }
-	| { kind: 'hired'; personIndex: number; yearIndex: number; month: number };
+	| { kind: 'work'; yearIndex: number; month: number }
+	| { kind: 'hired'; wageUsdPerHour: number; yearIndex: number; month: number };
 
 export type RowRole =
 	| { kind: 'field'; fieldIndex: number }
+	| { kind: 'work'; yearIndex: number; month: number }
 	| { kind: 'family-labour'; yearIndex: number; month: number }
 	| { kind: 'hired-within-work'; yearIndex: number; month: number }
 	| { kind: 'family-span'; yearIndex: number; months: number[] }
@@ -182,6 +184,22 @@ function evaluateChoice(
 	return years;
 }
 
+/** Every cost, coefficient and finite bound a number (bounds may be infinite: no bound). */
+function isFinite(model: LinearModel): boolean {
+	const ok = (n: number) => Number.isFinite(n);
+	const bound = (n: number) => !Number.isNaN(n);
+	return (
+		Number.isFinite(model.offset) &&
+		model.columns.every((c) => ok(c.cost) && bound(c.lower) && bound(c.upper)) &&
+		model.rows.every((r) => bound(r.lower) && bound(r.upper) && r.values.every(ok))
+	);
+}
+
+/** A row's entries on items that each own a column: choices, grazing months. */
+function entriesOf<T extends { column: number }>(items: T[], value: (item: T) => number) {
+	return new RowEntries().append(items, value);
+}
+
 /** Builds the farm model for a validated plan and options; issues name options that do not fit it. */
 export function buildFarmModel(plan: PlanDocument, options: OptimiseOptions): BuiltModel {
 	const issues = checkOptions(plan, options);
@@ -212,7 +230,7 @@ export function buildFarmModel(plan: PlanDocument, options: OptimiseOptions): Bu
 		role: RowRole,
 		name: string,
 		bounds: { lower?: number; upper?: number; limit?: number },
-		entries: Iterable<[number, number]>
+		entries: RowEntries
 	) => {
 		rowRoles.push(role);
 		rowLimits.push(bounds.limit ?? bounds.upper ?? bounds.lower ?? 0);
@@ -239,8 +257,7 @@ export function buildFarmModel(plan: PlanDocument, options: OptimiseOptions): Bu
 						sum +
 						y.netReturnUsd -
 						weights.nitrogenUsdPerLb * y.nitrogenPurchasedLb -
-						weights.dieselUsdPerGallon * y.dieselGallons -
-						weights.familyLabourUsdPerHour * y.labourHours,
+						weights.dieselUsdPerGallon * y.dieselGallons,
 					0
 				);
 				const column = addColumn(
@@ -293,10 +310,7 @@ export function buildFarmModel(plan: PlanDocument, options: OptimiseOptions): Bu
 						{ kind: 'grazing', yearIndex: y, month: segment.month },
 						{
 							name: `grazing_${year}_${monthNumber(segment.month)}_${k + 1}`,
-							cost:
-								saving +
-								weights.familyLabourUsdPerHour * choreHoursSavedPerAuDay +
-								weights.grazingUsdPerAuDay,
+							cost: saving + weights.grazingUsdPerAuDay,
 							lower: 0,
 							upper: units * grazingDays,
 							integer: false
@@ -323,27 +337,48 @@ export function buildFarmModel(plan: PlanDocument, options: OptimiseOptions): Bu
 		});
 	}
 
-	// Hired help: hours each month up to what each hired person has, at their wage.
-	const hired = plan.people
-		.map((person, personIndex) => ({ person, personIndex }))
-		.filter(({ person }) => person.role === 'hired');
+	// All the work of each month (field work and chores), the family's and hired: a column, so the
+	// dense sum over every choice is written once and the labour limits are short rows on it.
+	const workColumns = years.map((year, y) =>
+		Array.from({ length: 12 }, (_, m) =>
+			addColumn(
+				{ kind: 'work', yearIndex: y, month: m },
+				{
+					name: `work_${year}_${monthNumber(m)}`,
+					// The value the couple put on an hour of their own; hired hours get it back below.
+					cost: -weights.familyLabourUsdPerHour,
+					lower: 0,
+					upper: Infinity,
+					integer: false
+				},
+				years.map(() => 0)
+			)
+		)
+	);
+
+	// Hired help, pooled by wage: hours each month up to what the hired people at that wage have.
+	const hiredByWage = new Map<number, number[]>();
+	for (const person of plan.people) {
+		if (person.role !== 'hired') continue;
+		const wage = person.wageUsdPerHour ?? 0;
+		const hours = hiredByWage.get(wage) ?? new Array<number>(12).fill(0);
+		person.hoursAvailableByMonth.forEach((h, m) => (hours[m] += h));
+		hiredByWage.set(wage, hours);
+	}
 	const hiredColumns = years.map(() => Array.from({ length: 12 }, () => [] as number[]));
 	years.forEach((year, y) => {
-		for (const { person, personIndex } of hired) {
+		for (const [wage, hours] of hiredByWage) {
 			for (let m = 0; m < 12; m++) {
-				if (person.hoursAvailableByMonth[m] <= 0) continue;
+				if (hours[m] <= 0) continue;
 				hiredColumns[y][m].push(
 					addColumn(
-						{ kind: 'hired', personIndex, yearIndex: y, month: m },
+						{ kind: 'hired', wageUsdPerHour: wage, yearIndex: y, month: m },
 						{
-							name: `hired_${lpName(person.id)}_${year}_${monthNumber(m)}`,
+							name: `hired_at_${wage}_usd_${year}_${monthNumber(m)}`,
 							// The budgets charge every hour at the labour rate; a hired hour costs its wage.
-							cost:
-								prices[y].labourUsdPerHour -
-								(person.wageUsdPerHour ?? 0) +
-								weights.familyLabourUsdPerHour,
+							cost: prices[y].labourUsdPerHour - wage + weights.familyLabourUsdPerHour,
 							lower: 0,
-							upper: person.hoursAvailableByMonth[m],
+							upper: hours[m],
 							integer: false
 						},
 						years.map(() => 0)
@@ -353,11 +388,7 @@ export function buildFarmModel(plan: PlanDocument, options: OptimiseOptions): Bu
 		}
 	});
 
-	const choreConstant =
-		herd && units > 0 ? herd.feedingSeasonDays * herd.choreHoursPerDayFeedingHay : 0;
-	builder.offset =
-		netReturnConstantUsdByYear.reduce((a, b) => a + b, 0) -
-		weights.familyLabourUsdPerHour * choreConstant * years.length;
+	builder.offset = netReturnConstantUsdByYear.reduce((a, b) => a + b, 0);
 
 	// Rows. Each field is farmed whole, split between its choices.
 	plan.fields.forEach((field, fieldIndex) => {
@@ -365,27 +396,36 @@ export function buildFarmModel(plan: PlanDocument, options: OptimiseOptions): Bu
 			{ kind: 'field', fieldIndex },
 			`field_${lpName(field.id)}`,
 			{ lower: 1, upper: 1 },
-			choicesByField[fieldIndex].map((c) => [c.column, 1])
+			entriesOf(choicesByField[fieldIndex], () => 1)
 		);
 	});
 
-	// Work each month less hired hours: the family's, within their hours (chores on hay days moved right).
+	// Each month's work: the choices' field work, and chores (every season day a hay day, less what
+	// grazing saves), the hay-day chores being the constant on the right.
 	const familyHours =
 		limits.familyLabourHoursByMonth ??
 		(plan.people.length ? familyHoursByMonth(plan.people) : plan.farm.labourHoursAvailableByMonth);
-	const familyWork = (y: number, m: number): [number, number][] => [
-		...choices.map((c): [number, number] => [c.column, c.years[y].labourHoursByMonth[m]]),
-		...grazingColumns[y]
-			.filter((g) => g.month === m)
-			.map((g): [number, number] => [g.column, -choreHoursSavedPerAuDay]),
-		...hiredColumns[y][m].map((column): [number, number] => [column, -1])
-	];
+	// Family hours: all the month's work less the hired hours (`sign` -1 for hired less work).
+	const familyWork = (y: number, m: number, sign = 1, entries = new RowEntries()) => {
+		entries.add(workColumns[y][m], sign);
+		for (const column of hiredColumns[y][m]) entries.add(column, -sign);
+		return entries;
+	};
 	years.forEach((year, y) => {
 		for (let m = 0; m < 12; m++) {
+			const work = addRow(
+				{ kind: 'work', yearIndex: y, month: m },
+				`work_in_${year}_${monthNumber(m)}`,
+				{ lower: -baseChoreHours[y][m], upper: -baseChoreHours[y][m] },
+				entriesOf(choices, (c) => c.years[y].labourHoursByMonth[m])
+					.append(grazingColumns[y], (g) => (g.month === m ? -choreHoursSavedPerAuDay : 0))
+					.add(workColumns[y][m], -1)
+			);
+			rowLimits[work] = baseChoreHours[y][m];
 			addRow(
 				{ kind: 'family-labour', yearIndex: y, month: m },
 				`family_labour_${year}_${monthNumber(m)}`,
-				{ upper: familyHours[m] - baseChoreHours[y][m], limit: familyHours[m] },
+				{ upper: familyHours[m] },
 				familyWork(y, m)
 			);
 			// No more hired hours than there is work: the rest would be paid for nothing.
@@ -393,8 +433,8 @@ export function buildFarmModel(plan: PlanDocument, options: OptimiseOptions): Bu
 				addRow(
 					{ kind: 'hired-within-work', yearIndex: y, month: m },
 					`hired_within_work_${year}_${monthNumber(m)}`,
-					{ upper: baseChoreHours[y][m] },
-					familyWork(y, m).map(([column, value]): [number, number] => [column, -value])
+					{ upper: 0 },
+					familyWork(y, m, -1)
 				);
 			}
 		}
@@ -404,11 +444,8 @@ export function buildFarmModel(plan: PlanDocument, options: OptimiseOptions): Bu
 			addRow(
 				{ kind: 'family-span', yearIndex: y, months },
 				`family_labour_span_${year}`,
-				{
-					upper: span.maxHours - months.reduce((sum, m) => sum + baseChoreHours[y][m], 0),
-					limit: span.maxHours
-				},
-				months.flatMap((m) => familyWork(y, m))
+				{ upper: span.maxHours },
+				months.reduce((entries, m) => familyWork(y, m, 1, entries), new RowEntries())
 			);
 		}
 		if (limits.nitrogenPurchasedLbPerYear !== null) {
@@ -416,7 +453,7 @@ export function buildFarmModel(plan: PlanDocument, options: OptimiseOptions): Bu
 				{ kind: 'nitrogen', yearIndex: y },
 				`nitrogen_${year}`,
 				{ upper: limits.nitrogenPurchasedLbPerYear },
-				choices.map((c) => [c.column, c.years[y].nitrogenPurchasedLb])
+				entriesOf(choices, (c) => c.years[y].nitrogenPurchasedLb)
 			);
 		}
 		if (limits.dieselGallonsPerYear !== null) {
@@ -424,7 +461,7 @@ export function buildFarmModel(plan: PlanDocument, options: OptimiseOptions): Bu
 				{ kind: 'diesel', yearIndex: y },
 				`diesel_${year}`,
 				{ upper: limits.dieselGallonsPerYear },
-				choices.map((c) => [c.column, c.years[y].dieselGallons])
+				entriesOf(choices, (c) => c.years[y].dieselGallons)
 			);
 		}
 	});
@@ -444,9 +481,9 @@ export function buildFarmModel(plan: PlanDocument, options: OptimiseOptions): Bu
 				{ kind: 'crop', cropId: limit.cropId, cropName, yearIndex: y },
 				`crop_${lpName(limit.cropId)}_${year}`,
 				{ lower, upper },
-				choices
-					.filter((c) => c.years[y].cropId === limit.cropId)
-					.map((c) => [c.column, plan.fields[c.fieldIndex].acres])
+				entriesOf(choices, (c) =>
+					c.years[y].cropId === limit.cropId ? plan.fields[c.fieldIndex].acres : 0
+				)
 			);
 		});
 	}
@@ -459,18 +496,17 @@ export function buildFarmModel(plan: PlanDocument, options: OptimiseOptions): Bu
 				(1 - herd.feedingWastePercent / 100)) /
 			herd.intakeLbDmPerAuDay;
 		years.forEach((year, y) => {
-			addRow({ kind: 'grazing-offered', yearIndex: y }, `grazing_offered_${year}`, { upper: 0 }, [
-				...grazingColumns[y].map((g): [number, number] => [g.column, 1]),
-				...choices.map((c): [number, number] => [c.column, -c.years[y].grazingAuDays])
-			]);
+			addRow(
+				{ kind: 'grazing-offered', yearIndex: y },
+				`grazing_offered_${year}`,
+				{ upper: 0 },
+				entriesOf(grazingColumns[y], () => 1).append(choices, (c) => -c.years[y].grazingAuDays)
+			);
 			addRow(
 				{ kind: 'forage', yearIndex: y },
 				`forage_${year}`,
 				{ lower: units * herd.feedingSeasonDays },
-				[
-					...grazingColumns[y].map((g): [number, number] => [g.column, 1]),
-					[hayColumns[y], auDaysPerBale]
-				]
+				entriesOf(grazingColumns[y], () => 1).add(hayColumns[y], auDaysPerBale)
 			);
 		});
 	}
@@ -498,6 +534,18 @@ export function buildFarmModel(plan: PlanDocument, options: OptimiseOptions): Bu
 	}
 
 	const model = builder.build();
+	if (!isFinite(model)) {
+		return {
+			ok: false,
+			issues: [
+				{
+					path: 'plan',
+					message:
+						'The plan gives a number too large to work with under some rotation: check its yields, prices and rates.'
+				}
+			]
+		};
+	}
 	return {
 		ok: true,
 		farm: {

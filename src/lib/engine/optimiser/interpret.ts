@@ -113,13 +113,22 @@ function conflicts(farm: FarmModel, answer: SolverAnswer): LimitConflict[] {
 			case 'family-labour':
 				out.push({
 					name,
-					label: `Family hours in ${monthNames[role.month]} ${year}: at most ${figure(limit)}.`
+					label: `Family hours in ${monthNames[role.month]} ${year}: at most ${figure(limit)} hours.`
+				});
+				break;
+			case 'work':
+				out.push({
+					name,
+					label:
+						limit > 0
+							? `The work of ${monthNames[role.month]} ${year}: the herd's chores take ${figure(limit)} hours, besides any field work.`
+							: `The field work of ${monthNames[role.month]} ${year} needs hours.`
 				});
 				break;
 			case 'family-span':
 				out.push({
 					name,
-					label: `Family hours in the chosen months of ${year}: at most ${figure(limit)}.`
+					label: `Family hours in the chosen months of ${year}: at most ${figure(limit)} hours.`
 				});
 				break;
 			case 'nitrogen':
@@ -178,7 +187,7 @@ function fieldChoices(farm: FarmModel, values: Float64Array): FieldChoice[] {
 }
 
 function optimisedYears(farm: FarmModel, values: Float64Array): OptimisedYear[] {
-	const { plan, model } = farm;
+	const { plan } = farm;
 	return farm.years.map((year, y) => {
 		let netReturnUsd = farm.netReturnConstantUsdByYear[y];
 		farm.netReturnUsdByColumnYear.forEach((byYear, j) => (netReturnUsd += byYear[y] * values[j]));
@@ -205,17 +214,13 @@ function optimisedYears(farm: FarmModel, values: Float64Array): OptimisedYear[] 
 		let hayBales = 0;
 		farm.columnRoles.forEach((role, j) => {
 			if (!('yearIndex' in role) || role.yearIndex !== y) return;
-			if (role.kind === 'hired') hiredLabourHoursByMonth[role.month] += values[j];
+			if (role.kind === 'work') familyLabourHoursByMonth[role.month] += values[j];
+			if (role.kind === 'hired') {
+				hiredLabourHoursByMonth[role.month] += values[j];
+				familyLabourHoursByMonth[role.month] -= values[j];
+			}
 			if (role.kind === 'grazing') grazingAuDays += values[j];
 			if (role.kind === 'hay') hayBales += values[j];
-		});
-		farm.rowRoles.forEach((role, i) => {
-			if (role.kind !== 'family-labour' || role.yearIndex !== y) return;
-			// The row holds family work less the hay-day chores moved to its right-hand side.
-			const row = model.rows[i];
-			let work = farm.rowLimits[i] - row.upper;
-			row.columns.forEach((j, k) => (work += row.values[k] * values[j]));
-			familyLabourHoursByMonth[role.month] = Math.max(work, 0);
 		});
 		const labourHours =
 			familyLabourHoursByMonth.reduce((a, b) => a + b, 0) +

@@ -33,6 +33,36 @@ export interface LinearModel {
 	rows: Row[];
 }
 
+/** A row's coefficients as they are gathered: column, value; zeros are left out. */
+export class RowEntries {
+	readonly columns: number[] = [];
+	readonly values: number[] = [];
+
+	add(column: number, value: number): this {
+		if (value !== 0) {
+			this.columns.push(column);
+			this.values.push(value);
+		}
+		return this;
+	}
+
+	/** Adds each item's column with `value(item)`. */
+	append<T extends { column: number }>(items: T[], value: (item: T) => number): this {
+		for (const item of items) this.add(item.column, value(item));
+		return this;
+	}
+
+	/** The same row with each column once (values on a repeated column summed). */
+	merged(): { columns: number[]; values: number[] } {
+		if (new Set(this.columns).size === this.columns.length) return this;
+		const byColumn = new Map<number, number>();
+		this.columns.forEach((c, i) => byColumn.set(c, (byColumn.get(c) ?? 0) + this.values[i]));
+		const merged = new RowEntries();
+		for (const [column, value] of byColumn) merged.add(column, value);
+		return merged;
+	}
+}
+
 export class ModelBuilder {
 	readonly columns: Column[] = [];
 	readonly rows: Row[] = [];
@@ -53,19 +83,9 @@ export class ModelBuilder {
 	}
 
 	/** Adds a row; entries on the same column are summed and zero coefficients dropped. */
-	addRow(name: string, lower: number, upper: number, entries: Iterable<[number, number]>): number {
+	addRow(name: string, lower: number, upper: number, entries: RowEntries): number {
 		this.claim(name);
-		const byColumn = new Map<number, number>();
-		for (const [column, value] of entries) {
-			byColumn.set(column, (byColumn.get(column) ?? 0) + value);
-		}
-		const columns: number[] = [];
-		const values: number[] = [];
-		for (const [column, value] of [...byColumn].sort((a, b) => a[0] - b[0])) {
-			if (value === 0) continue;
-			columns.push(column);
-			values.push(value);
-		}
+		const { columns, values } = entries.merged();
 		this.rows.push({ name, lower, upper, columns, values });
 		return this.rows.length - 1;
 	}

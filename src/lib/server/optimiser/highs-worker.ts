@@ -5,8 +5,8 @@
  * start it the same way; it loads HiGHS once and answers one job at a time, disposing of each model.
  *
  * Jobs and answers (all plain data; arrays as typed arrays):
- *   { id, kind: 'solve', model, timeLimitSeconds }            → { id, kind: 'answer', answer }
- *   { id, kind: 'sweep', model, rows, uppers, timeLimitSeconds }
+ *   { id, kind: 'solve', model, timeLimitSeconds, gapPercent }            → { id, kind: 'answer', answer }
+ *   { id, kind: 'sweep', model, rows, uppers, timeLimitSeconds, gapPercent }
  *       → { id, kind: 'point', index, answer } for each point, then { id, kind: 'done' }
  * `model` is the CSR form of `toCsr`; a sweep sets `rows`' upper bounds to each point's `uppers[k]` on
  * one persistent model, so each point starts from the last point's basis.
@@ -46,12 +46,17 @@ function modelData(highs, m, { relaxed = false, fixed = null } = {}) {
 	};
 }
 
-function setOptions(model, timeLimitSeconds) {
-	model.options.set({ output_flag: false, time_limit: timeLimitSeconds, iis_strategy: 6 });
+function setOptions(model, job) {
+	model.options.set({
+		output_flag: false,
+		time_limit: job.timeLimitSeconds,
+		mip_rel_gap: job.gapPercent / 100,
+		iis_strategy: 6
+	});
 }
 
 /** Row duals of the LP with every integer column held at its whole-field value. */
-function heldDuals(highs, m, colValue, timeLimitSeconds) {
+function heldDuals(highs, m, colValue, job) {
 	const lower = Float64Array.from(m.colLower);
 	const upper = Float64Array.from(m.colUpper);
 	for (let j = 0; j < m.numCols; j++) {
@@ -59,7 +64,7 @@ function heldDuals(highs, m, colValue, timeLimitSeconds) {
 	}
 	const lp = highs.createModel(modelData(highs, m, { relaxed: true, fixed: { lower, upper } }));
 	try {
-		setOptions(lp, timeLimitSeconds);
+		setOptions(lp, job);
 		lp.run();
 		return lp.getModelStatus() === 7 ? Float64Array.from(lp.getSolution().rowDual) : null;
 	} finally {
@@ -68,10 +73,10 @@ function heldDuals(highs, m, colValue, timeLimitSeconds) {
 }
 
 /** The rows and columns of an irreducible set of limits that cannot all hold, on the LP. */
-function conflict(highs, m, timeLimitSeconds) {
+function conflict(highs, m, job) {
 	const lp = highs.createModel(modelData(highs, m, { relaxed: true }));
 	try {
-		setOptions(lp, timeLimitSeconds);
+		setOptions(lp, job);
 		lp.run();
 		if (lp.getModelStatus() !== 8) return { rows: [], columns: [], relaxedFeasible: true };
 		const iis = lp.getIis();
@@ -81,7 +86,7 @@ function conflict(highs, m, timeLimitSeconds) {
 	}
 }
 
-function answerOf(highs, model, m, timeLimitSeconds, started) {
+function answerOf(highs, model, m, job, started) {
 	const code = model.getModelStatus();
 	const isMip = m.integrality !== null;
 	let status = statusByCode.get(code) ?? 'error';
@@ -108,13 +113,13 @@ function answerOf(highs, model, m, timeLimitSeconds, started) {
 		if (isMip) {
 			answer.bestBound = Number(model.info.get('mip_dual_bound'));
 			answer.gapPercent = Math.max(0, Number(model.info.get('mip_gap')) * 100);
-			answer.rowMarginalValues = heldDuals(highs, m, solution.colValue, timeLimitSeconds);
+			answer.rowMarginalValues = heldDuals(highs, m, solution.colValue, job);
 		} else {
 			answer.rowMarginalValues = Float64Array.from(solution.rowDual);
 		}
 	}
 	if (status === 'infeasible') {
-		const found = conflict(highs, m, timeLimitSeconds);
+		const found = conflict(highs, m, job);
 		answer.conflictRows = found.rows;
 		answer.conflictColumns = found.columns;
 		if (found.relaxedFeasible) {
@@ -130,9 +135,9 @@ function solve(highs, job) {
 	const started = performance.now();
 	const model = highs.createModel(modelData(highs, job.model));
 	try {
-		setOptions(model, job.timeLimitSeconds);
+		setOptions(model, job);
 		model.run();
-		return answerOf(highs, model, job.model, job.timeLimitSeconds, started);
+		return answerOf(highs, model, job.model, job, started);
 	} finally {
 		model.dispose();
 	}
@@ -141,7 +146,7 @@ function solve(highs, job) {
 function sweep(highs, job) {
 	const model = highs.createModel(modelData(highs, job.model));
 	try {
-		setOptions(model, job.timeLimitSeconds);
+		setOptions(model, job);
 		job.uppers.forEach((uppers, index) => {
 			const started = performance.now();
 			const m = { ...job.model, rowUpper: Float64Array.from(job.model.rowUpper) };
@@ -150,7 +155,7 @@ function sweep(highs, job) {
 				m.rowUpper[row] = uppers[r];
 			});
 			model.run();
-			const answer = answerOf(highs, model, m, job.timeLimitSeconds, started);
+			const answer = answerOf(highs, model, m, job, started);
 			parentPort.postMessage({ id: job.id, kind: 'point', index, answer });
 		});
 	} finally {

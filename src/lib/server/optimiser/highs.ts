@@ -86,13 +86,16 @@ function run(
 	});
 }
 
-/** Solves the model with HiGHS within `timeLimitSeconds`. */
-export async function solveWithHighs(
-	model: CsrModel,
-	timeLimitSeconds: number
-): Promise<SolverAnswer> {
+/** How long HiGHS may take, and (whole fields) how close to the best bound it must come. */
+export interface SolveLimits {
+	timeLimitSeconds: number;
+	gapPercent: number;
+}
+
+/** Solves the model with HiGHS within the limits. */
+export async function solveWithHighs(model: CsrModel, limits: SolveLimits): Promise<SolverAnswer> {
 	let answer: SolverAnswer | null = null;
-	await run({ kind: 'solve', model, timeLimitSeconds }, timeLimitSeconds, (reply, finish) => {
+	await run({ kind: 'solve', model, ...limits }, limits.timeLimitSeconds, (reply, finish) => {
 		if (reply.kind === 'answer') {
 			answer = reply.answer;
 			finish();
@@ -109,12 +112,12 @@ export function sweepWithHighs(
 	model: CsrModel,
 	rows: number[],
 	uppers: number[][],
-	timeLimitSeconds: number,
+	limits: SolveLimits,
 	onPoint: (index: number, answer: SolverAnswer) => void
 ): Promise<void> {
 	return run(
-		{ kind: 'sweep', model, rows, uppers, timeLimitSeconds },
-		timeLimitSeconds * uppers.length,
+		{ kind: 'sweep', model, rows, uppers, ...limits },
+		limits.timeLimitSeconds * uppers.length,
 		(reply, finish) => {
 			if (reply.kind === 'point') onPoint(reply.index, reply.answer);
 			if (reply.kind === 'done') finish();

@@ -3,7 +3,7 @@
 // command line runs this under tsx, without the app's aliases.
 import { currentPlanYears } from '../../engine/optimiser/current-plan';
 import { buildFarmModel, type FarmModel } from '../../engine/optimiser/farm-model';
-import { interpretAnswer } from '../../engine/optimiser/interpret';
+import { interpretAnswer, type SolverAnswer } from '../../engine/optimiser/interpret';
 import { toCsr } from '../../engine/optimiser/linear-model';
 import { writeLpFile } from '../../engine/optimiser/lp-format';
 import type { OptimiseResult, OptimisedYear, TradeOffLine } from '../../engine/optimiser/types';
@@ -15,13 +15,30 @@ import { solveWithHighs, sweepWithHighs } from './highs';
 export type Optimised =
 	{ ok: true; result: OptimiseResult; farm: FarmModel } | { ok: false; issues: FieldIssue[] };
 
+/** A solver that fails or stops answering gives an answer saying so, never an error page. */
+function failedAnswer(error: unknown): SolverAnswer {
+	return {
+		status: 'error',
+		message: `The solver failed: ${error instanceof Error ? error.message : String(error)}`,
+		objective: null,
+		columnValues: null,
+		rowValues: null,
+		rowMarginalValues: null,
+		bestBound: null,
+		gapPercent: null,
+		conflictRows: [],
+		conflictColumns: [],
+		solveMs: 0
+	};
+}
+
 export async function optimisePlan(
 	plan: PlanDocument,
 	options: OptimiseOptions
 ): Promise<Optimised> {
 	const built = buildFarmModel(plan, options);
 	if (!built.ok) return built;
-	const answer = await solveWithHighs(toCsr(built.farm.model), options.timeLimitSeconds);
+	const answer = await solveWithHighs(toCsr(built.farm.model), options).catch(failedAnswer);
 	return { ok: true, result: interpretAnswer(built.farm, answer), farm: built.farm };
 }
 
@@ -48,6 +65,8 @@ export function currentPlan(plan: PlanDocument): { netReturnUsd: number; years: 
 	return { netReturnUsd: years.reduce((sum, y) => sum + y.netReturnUsd, 0), years };
 }
 
+const sweepSeconds = 120;
+
 /** The swept limit's value for a year of the plan as it stands (family hours in the months, or N). */
 function sweptValue(request: TradeOffRequest, year: OptimisedYear): number {
 	if (request.sweep.limit === 'nitrogen') return year.nitrogenPurchasedLb;
@@ -69,6 +88,8 @@ export function tradeOffCurve(
 	const { sweep } = request;
 	const options: OptimiseOptions = {
 		...request.options,
+		// The whole curve within two minutes, however many points.
+		timeLimitSeconds: Math.min(request.options.timeLimitSeconds, sweepSeconds / sweep.points),
 		limits:
 			sweep.limit === 'nitrogen'
 				? { ...request.options.limits, nitrogenPurchasedLbPerYear: sweep.to }
@@ -95,7 +116,7 @@ export function tradeOffCurve(
 			toCsr(farm.model),
 			rows,
 			limits.map((limit) => offsets.map((offset) => limit - offset)),
-			options.timeLimitSeconds,
+			options,
 			(index, answer) => {
 				send({
 					type: 'point',

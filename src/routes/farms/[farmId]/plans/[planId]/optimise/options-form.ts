@@ -16,6 +16,8 @@ export interface CropLimitForm {
 export interface OptionsForm {
 	wholeFields: boolean;
 	timeLimitSeconds: Entry;
+	/** Whole fields: stop once within this percent of the best possible. */
+	gapPercent: Entry;
 	familyLabourHoursByMonth: Entry[];
 	/** A cap on the family's hours over some months, each year (off: no such cap). */
 	span: { on: boolean; months: number[]; maxHours: Entry };
@@ -60,6 +62,7 @@ export function initialForm(data: {
 	return {
 		wholeFields: false,
 		timeLimitSeconds: 10,
+		gapPercent: 0.5,
 		familyLabourHoursByMonth: [...data.familyHoursByMonth],
 		span: { on: false, months: [9, 10, 11], maxHours: null },
 		nitrogenPurchasedLbPerYear: null,
@@ -110,6 +113,7 @@ export function optionsOf(
 		options: {
 			wholeFields: form.wholeFields,
 			timeLimitSeconds: form.timeLimitSeconds ?? undefined,
+			gapPercent: form.gapPercent ?? undefined,
 			limits: {
 				// An empty month goes as null, for the schema to refuse by its month.
 				familyLabourHoursByMonth: form.familyLabourHoursByMonth.map((h) => h ?? null) as number[],

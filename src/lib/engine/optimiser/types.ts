@@ -1,7 +1,7 @@
 /** What the optimiser answers: the CLI prints it, the API returns it, the optimiser page shows it. */
 
 export type OptimiseStatus =
-	/** The best answer there is (whole fields: within HiGHS's default 0.01 % gap). */
+	/** The best answer there is (whole fields: within the options' `gapPercent` of the best bound). */
 	| 'optimal'
 	/** No plan keeps every limit: `conflicts` names the limits that cannot all hold. */
 	| 'infeasible'

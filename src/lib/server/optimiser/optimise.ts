@@ -105,6 +105,18 @@ export function tradeOffCurve(
 	const rows = farm.rowRoles.flatMap((role, i) => (role.kind === kind ? [i] : []));
 	// A row's upper bound is its limit less what the model moved to the right-hand side (chores).
 	const offsets = rows.map((i) => farm.rowLimits[i] - farm.model.rows[i].upper);
+	// Each point is read with the swept rows at that point's limit, as it was solved.
+	const swept = new Set(rows);
+	const atLimit = (limit: number): FarmModel => ({
+		...farm,
+		rowLimits: farm.rowLimits.map((l, i) => (swept.has(i) ? limit : l)),
+		model: {
+			...farm.model,
+			rows: farm.model.rows.map((row, i) =>
+				swept.has(i) ? { ...row, upper: limit - (farm.rowLimits[i] - row.upper) } : row
+			)
+		}
+	});
 	const limits = Array.from(
 		{ length: sweep.points },
 		(_, k) => sweep.from + ((sweep.to - sweep.from) * k) / (sweep.points - 1)
@@ -121,7 +133,7 @@ export function tradeOffCurve(
 				send({
 					type: 'point',
 					index,
-					point: { limit: limits[index], result: interpretAnswer(farm, answer) }
+					point: { limit: limits[index], result: interpretAnswer(atLimit(limits[index]), answer) }
 				});
 				send({ type: 'progress', done: ++done, total: limits.length });
 			}

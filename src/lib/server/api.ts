@@ -1,6 +1,6 @@
 import { json } from '@sveltejs/kit';
 import type { z } from 'zod';
-import { toFieldIssues } from '$lib/schemas/issues';
+import { toFieldIssues, type FieldIssue } from '$lib/schemas/issues';
 
 /** The API's answer to input it cannot accept: 422 with each problem named by its path. */
 export function invalidInput(error: z.ZodError) {
@@ -13,6 +13,11 @@ export function invalidInput(error: z.ZodError) {
 /** The same 422 for a problem only the database can see (an id another row already has). */
 export function invalidValue(path: string, message: string) {
 	return json({ message: 'The input is not valid.', issues: [{ path, message }] }, { status: 422 });
+}
+
+/** 422: options that name what the plan does not have (a crop, a field, a rotation). */
+export function optionsRefused(issues: FieldIssue[]) {
+	return json({ message: 'The options do not fit the plan.', issues }, { status: 422 });
 }
 
 /** 409: the request is valid but the farm's data refuses it (a field a plan uses); `detail` names what. */

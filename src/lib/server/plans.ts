@@ -1,6 +1,7 @@
 // What the plans API and the plan pages share: a draft checked as the plan file it makes on its farm,
 // turned into a version's rows, and evaluated (with a partial budget against another plan).
 import { json } from '@sveltejs/kit';
+import type { z } from 'zod';
 import {
 	evaluatePlan,
 	NonFiniteResultError,
@@ -12,6 +13,7 @@ import {
 import type { FieldIssue } from '$lib/schemas/issues';
 import { parsePlanDocument, type PlanDocument } from '$lib/schemas/plan-file';
 import type { PlanDraft, ResultsQuery } from '$lib/schemas/plans';
+import { invalidInput, readJson } from '$lib/server/api';
 import type { Db, Tx } from '$lib/server/db/client';
 import { findIdsByKey } from '$lib/server/db/keys';
 import {
@@ -151,6 +153,27 @@ export async function storedPlanDocument(
 	const checked = draft ? await checkDraft(db, farm, draft) : null;
 	if (checked?.ok) return checked;
 	return refused('The plan is not valid.', checked?.issues ?? []);
+}
+
+/**
+ * A request on the plan's newest version with a JSON body for `schema` (the optimiser's routes): the
+ * parsed body and the plan file, or the 400/413/422 answer naming what is wrong.
+ */
+export async function planDocumentRequest<T extends z.ZodType>(
+	db: Db | Tx,
+	farm: Farm,
+	plan: PlanRow,
+	request: Request,
+	schema: T
+): Promise<
+	{ ok: true; body: z.output<T>; document: PlanDocument } | { ok: false; response: Response }
+> {
+	const body = await readJson(request);
+	if (!body.ok) return body;
+	const parsed = schema.safeParse(body.body);
+	if (!parsed.success) return { ok: false, response: invalidInput(parsed.error) };
+	const stored = await storedPlanDocument(db, farm, plan);
+	return stored.ok ? { ok: true, body: parsed.data, document: stored.document } : stored;
 }
 
 export type ResultsAnswer =

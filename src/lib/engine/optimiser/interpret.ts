@@ -1,3 +1,4 @@
+import { MONTH_NAMES as monthNames } from '../../months';
 import type { FarmModel, RowRole } from './farm-model';
 import type {
 	BindingLimit,
@@ -28,21 +29,6 @@ export interface SolverAnswer {
 	conflictColumns: number[];
 	solveMs: number;
 }
-
-const monthNames = [
-	'January',
-	'February',
-	'March',
-	'April',
-	'May',
-	'June',
-	'July',
-	'August',
-	'September',
-	'October',
-	'November',
-	'December'
-];
 
 const usd = (n: number) =>
 	n.toLocaleString('en-US', { style: 'currency', currency: 'USD', maximumFractionDigits: 2 });

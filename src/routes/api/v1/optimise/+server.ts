@@ -3,7 +3,7 @@ import type { FieldIssue } from '$lib/schemas/issues';
 import { toFieldIssues } from '$lib/schemas/issues';
 import { optimiseRequestSchema } from '$lib/schemas/optimise';
 import { parsePlanDocument } from '$lib/schemas/plan-file';
-import { readJson } from '$lib/server/api';
+import { readJson, optionsRefused } from '$lib/server/api';
 import { requireUser } from '$lib/server/auth/access';
 import { optimisePlan } from '$lib/server/optimiser/optimise';
 import type { RequestHandler } from './$types';
@@ -29,13 +29,7 @@ export const POST: RequestHandler = async (event) => {
 	}
 	const optimised = await optimisePlan(plan.plan, request.data.options);
 	if (!optimised.ok) {
-		return json(
-			{
-				message: 'The options do not fit the plan.',
-				issues: prefixed('options', optimised.issues)
-			},
-			{ status: 422 }
-		);
+		return optionsRefused(prefixed('options', optimised.issues));
 	}
 	return json(optimised.result);
 };

@@ -36,21 +36,6 @@ export interface OptionsForm {
 	};
 }
 
-export const monthNames = [
-	'January',
-	'February',
-	'March',
-	'April',
-	'May',
-	'June',
-	'July',
-	'August',
-	'September',
-	'October',
-	'November',
-	'December'
-] as const;
-
 const orNull = (value: Entry) => (value === undefined || value === null ? null : value);
 
 export function initialForm(data: {

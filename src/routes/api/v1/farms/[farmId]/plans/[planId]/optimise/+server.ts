@@ -1,10 +1,10 @@
 import { json } from '@sveltejs/kit';
 import { optimiseOptionsSchema } from '$lib/schemas/optimise';
-import { invalidInput, readJson } from '$lib/server/api';
+import { optionsRefused } from '$lib/server/api';
 import { requirePlanAccess } from '$lib/server/auth/access';
 import { db } from '$lib/server/db';
 import { currentPlan, optimisePlan } from '$lib/server/optimiser/optimise';
-import { storedPlanDocument } from '$lib/server/plans';
+import { planDocumentRequest } from '$lib/server/plans';
 import type { RequestHandler } from './$types';
 
 /**
@@ -19,18 +19,12 @@ export const POST: RequestHandler = async (event) => {
 		event.params.planId,
 		'farm:view'
 	);
-	const body = await readJson(event.request);
-	if (!body.ok) return body.response;
-	const options = optimiseOptionsSchema.safeParse(body.body);
-	if (!options.success) return invalidInput(options.error);
-	const stored = await storedPlanDocument(db, farm, plan);
-	if (!stored.ok) return stored.response;
-	const optimised = await optimisePlan(stored.document, options.data);
+	const asked = await planDocumentRequest(db, farm, plan, event.request, optimiseOptionsSchema);
+	if (!asked.ok) return asked.response;
+	const { body: options, document } = asked;
+	const optimised = await optimisePlan(document, options);
 	if (!optimised.ok) {
-		return json(
-			{ message: 'The options do not fit the plan.', issues: optimised.issues },
-			{ status: 422 }
-		);
+		return optionsRefused(optimised.issues);
 	}
-	return json({ result: optimised.result, current: currentPlan(stored.document) });
+	return json({ result: optimised.result, current: currentPlan(document) });
 };

@@ -1,10 +1,9 @@
-import { json } from '@sveltejs/kit';
 import { tradeOffSchema } from '$lib/schemas/optimise';
-import { invalidInput, readJson } from '$lib/server/api';
+import { optionsRefused } from '$lib/server/api';
 import { requirePlanAccess } from '$lib/server/auth/access';
 import { db } from '$lib/server/db';
 import { tradeOffCurve } from '$lib/server/optimiser/optimise';
-import { storedPlanDocument } from '$lib/server/plans';
+import { planDocumentRequest } from '$lib/server/plans';
 import type { RequestHandler } from './$types';
 
 /**
@@ -19,18 +18,12 @@ export const POST: RequestHandler = async (event) => {
 		event.params.planId,
 		'farm:view'
 	);
-	const body = await readJson(event.request);
-	if (!body.ok) return body.response;
-	const request = tradeOffSchema.safeParse(body.body);
-	if (!request.success) return invalidInput(request.error);
-	const stored = await storedPlanDocument(db, farm, plan);
-	if (!stored.ok) return stored.response;
-	const curve = tradeOffCurve(stored.document, request.data);
+	const asked = await planDocumentRequest(db, farm, plan, event.request, tradeOffSchema);
+	if (!asked.ok) return asked.response;
+	const { body: request, document } = asked;
+	const curve = tradeOffCurve(document, request);
 	if (!curve.ok) {
-		return json(
-			{ message: 'The options do not fit the plan.', issues: curve.issues },
-			{ status: 422 }
-		);
+		return optionsRefused(curve.issues);
 	}
 	const encoder = new TextEncoder();
 	const stream = new ReadableStream<Uint8Array>({

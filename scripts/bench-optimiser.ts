@@ -247,6 +247,9 @@ export async function optimiserTimings(): Promise<OptimiserBench> {
 			glpsol: largeGlpk.last
 		});
 		sizes[1].peakRssMb = peakRssBytes / 1024 / 1024;
+		notes.push(
+			"glpsol: wall time includes writing and reading the LP file; its cpu ms is this process's (writing the file), not glpsol's"
+		);
 		return { sizes, timings, objectives, notes };
 	} finally {
 		clearInterval(sampler);

@@ -9,6 +9,7 @@
  * answer with every field-year (no target). Then, in Chromium on the demo farm's reference plan, the time
  * from a changed rotation to new numbers on screen: median of 20 edits under 150 ms, with the slowest
  * beside it (scripts/bench-editor.ts; `npm run bench` sets up the database and the build it needs).
+ * Between the two, the optimiser on generated farms, HiGHS beside glpsol (scripts/bench-optimiser.ts).
  */
 import { readFileSync } from 'node:fs';
 import { performance } from 'node:perf_hooks';
@@ -17,6 +18,7 @@ import { nonFiniteNumberPaths } from '../src/lib/engine/finite';
 import { partialBudget, yearItems } from '../src/lib/engine/partial-budget';
 import { parsePlanDocument, type PlanDocument } from '../src/lib/schemas/plan-file';
 import { editorTimings, type EditorTimings } from './bench-editor';
+import { optimiserTimings, type OptimiserBench } from './bench-optimiser';
 
 const fieldCount = 100;
 const runs = 300;
@@ -208,6 +210,52 @@ for (const row of sizes) {
 }
 console.log(`${pad('peak RSS (maxRSS)', 28)}${num(maxRssMb, 1)}  ${'MB'.padStart(8)}`);
 console.log(`${pad('peak JS heap (sampled)', 28)}${num(peakHeapMb, 1)}  ${'MB'.padStart(8)}`);
+
+let optimiser: OptimiserBench | undefined;
+try {
+	optimiser = await optimiserTimings();
+} catch (error) {
+	console.log(`\nOptimiser: not measured: ${error instanceof Error ? error.message : error}`);
+	missed = true;
+}
+if (optimiser) {
+	console.log('\nOptimiser on generated farms (5 years; tests/support/generated-farm.ts)');
+	for (const s of optimiser.sizes) {
+		console.log(
+			`  ${s.what}: ${s.columns} columns, ${s.rows} rows, ${s.nonZeros} non-zeros; ` +
+				`peak RSS by the end of it ${s.peakRssMb.toFixed(0)} MB`
+		);
+	}
+	console.log(
+		`${pad('measure', 30)}${'median ms'.padStart(10)}${'cpu ms'.padStart(10)}${'runs'.padStart(6)}  ` +
+			`${'target'.padStart(8)}  result`
+	);
+	for (const t of optimiser.timings) {
+		const ok = t.target === null || t.ms < t.target;
+		missed ||= !ok;
+		console.log(
+			`${pad(t.what, 30)}${t.ms.toFixed(1).padStart(10)}${t.cpuMs.toFixed(1).padStart(10)}` +
+				`${String(t.runs).padStart(6)}  ${(t.target === null ? '-' : `< ${t.target}`).padStart(8)}  ` +
+				(t.target === null ? '' : ok ? 'PASS' : 'FAIL')
+		);
+	}
+	const money = (x: number | null | undefined) =>
+		(x === null || x === undefined ? 'none' : x.toFixed(2)).padStart(16);
+	console.log(
+		`${pad('objective ($)', 30)}${'HiGHS'.padStart(16)}${'glpsol'.padStart(16)}  rel. diff`
+	);
+	for (const o of optimiser.objectives) {
+		const diff =
+			o.highs !== null && o.glpsol !== null
+				? (Math.abs(o.highs - o.glpsol) / Math.abs(o.glpsol)).toExponential(1)
+				: '-';
+		console.log(`${pad(o.what, 30)}${money(o.highs)}${money(o.glpsol)}  ${diff.padStart(9)}`);
+	}
+	for (const note of optimiser.notes) console.log(`  ${note}`);
+	console.log(
+		`${pad('peak RSS (maxRSS, whole run)', 30)}${(process.resourceUsage().maxRSS / 1024).toFixed(1).padStart(10)} MB`
+	);
+}
 
 let editor: EditorTimings | undefined;
 try {

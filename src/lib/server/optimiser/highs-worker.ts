@@ -51,6 +51,9 @@ function setOptions(model, job) {
 		output_flag: false,
 		time_limit: job.timeLimitSeconds,
 		mip_rel_gap: job.gapPercent / 100,
+		// Presolve's parallel rows and columns rule took 4.5 s of an 8.5 s solve at 2000 fields and
+		// removed almost nothing (HiGHS 1.15.3's log); the rest of presolve stays.
+		presolve_rule_off: 8192,
 		iis_strategy: 6
 	});
 }

@@ -69,6 +69,7 @@ function lines(units: ResultUnits): Line[] {
 		group('cashRentUsd', 'Cash rent'),
 		group('hayUsd', 'Hay bought'),
 		group('choreLabourUsd', 'Chore labour'),
+		group('hiredWageAdjustmentUsd', 'Hired help: wages less the labour rate'),
 		group('fixedUsd', 'Fixed costs'),
 		{ key: 'costs', section: money, label: 'Total costs ($)', digits: 0, value: (y) => y.costsUsd },
 		{

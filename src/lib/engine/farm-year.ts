@@ -1,6 +1,7 @@
 import type { Herd } from '../schemas/plan-file';
 import { feedingYear, type FeedingYear } from './forage';
 import type { FieldYearResult } from './field-year';
+import { allocateLabour, type HiredHelp } from './labour';
 import type { YearPrices } from './prices';
 
 /** The herd's year (demand, grazing, hay, chores) comes from the forage ledger as it is. */
@@ -19,11 +20,21 @@ export interface FarmYearResult extends FeedingYear {
 	grazedAcres: number;
 	hayUsdAvoidedPerGrazedAcre: number;
 	choreLabourUsd: number;
+	/**
+	 * Every hour of work is charged at the labour rate in the field and chore costs; the hours hired
+	 * help works cost its wage instead: this is the wages less those hours at the labour rate (below 0
+	 * when help is paid less than the rate).
+	 */
+	hiredWageAdjustmentUsd: number;
+	/** What hired help is paid: its hours at its wage. */
+	hiredLabourUsd: number;
+	hiredLabourHours: number;
+	hiredLabourHoursByMonth: number[];
 	fixedCostsUsd: number;
 	costsUsd: number;
 	netReturnUsd: number;
 	netReturnUsdPerAcre: number;
-	/** Net return before the labour charge, per hour the family works (field work and chores). */
+	/** Net return before the family's labour charge, per hour the family works (field work and chores). */
 	netReturnUsdPerFamilyLabourHour: number | null;
 	nitrogenPurchasedLb: number;
 	dieselGallons: number;
@@ -44,7 +55,8 @@ export function evaluateFarmYear(
 	fieldYears: FieldYearResult[],
 	herd: Herd | null,
 	prices: YearPrices,
-	farm: { labourHoursAvailableByMonth: number[]; fixedCostsUsdPerYear: number }
+	farm: { labourHoursAvailableByMonth: number[]; fixedCostsUsdPerYear: number },
+	hiredHelp: HiredHelp[] = []
 ): FarmYearResult {
 	const { labourHoursAvailableByMonth, fixedCostsUsdPerYear: fixedCostsUsd } = farm;
 	let acres = 0;
@@ -82,9 +94,21 @@ export function evaluateFarmYear(
 	const hayUsdAvoided = (feeding?.hayBalesAvoided ?? 0) * prices.hayUsdPerBale;
 	const grazedAcres = (feeding?.grazingAuDays ?? 0) > 0 ? acresOffering : 0;
 	const choreLabourUsd = choreHours * prices.labourUsdPerHour;
-	const costsUsd = fieldCostsUsd + hayCostUsd + choreLabourUsd + fixedCostsUsd;
+	const hired = allocateLabour(
+		labourHoursByMonth,
+		labourHoursAvailableByMonth,
+		hiredHelp,
+		prices.labourUsdPerHour
+	);
+	const hiredWageAdjustmentUsd = hired.hiredWagesUsd - hired.hiredHours * prices.labourUsdPerHour;
+	const costsUsd =
+		fieldCostsUsd + hayCostUsd + choreLabourUsd + hiredWageAdjustmentUsd + fixedCostsUsd;
 	const netReturnUsd = revenueUsd - costsUsd;
 	const labourHours = fieldLabourHours + choreHours;
+	const familyLabourHours = labourHours - hired.hiredHours;
+	// The family's own hours, charged at the labour rate (the hired hours' wages stay a cost).
+	const familyLabourUsd =
+		fieldLabourUsd + choreLabourUsd - hired.hiredHours * prices.labourUsdPerHour;
 
 	return {
 		year,
@@ -97,13 +121,17 @@ export function evaluateFarmYear(
 		grazedAcres,
 		hayUsdAvoidedPerGrazedAcre: grazedAcres > 0 ? hayUsdAvoided / grazedAcres : 0,
 		choreLabourUsd,
+		hiredWageAdjustmentUsd,
+		hiredLabourUsd: hired.hiredWagesUsd,
+		hiredLabourHours: hired.hiredHours,
+		hiredLabourHoursByMonth: hired.hiredHoursByMonth,
 		fixedCostsUsd,
 		costsUsd,
 		netReturnUsd,
 		netReturnUsdPerAcre: netReturnUsd / acres,
 		netReturnUsdPerFamilyLabourHour:
-			labourHours >= minLabourHoursForHourlyReturn
-				? (netReturnUsd + fieldLabourUsd + choreLabourUsd) / labourHours
+			familyLabourHours >= minLabourHoursForHourlyReturn
+				? (netReturnUsd + familyLabourUsd) / familyLabourHours
 				: null,
 		nitrogenPurchasedLb,
 		dieselGallons,

@@ -11,6 +11,7 @@ import {
 	type FieldYearResult
 } from './field-year';
 import { nonFiniteNumberPaths } from './finite';
+import type { HiredHelp } from './labour';
 import { partialBudget, yearItems, type PartialBudget, type YearItems } from './partial-budget';
 import { yearPrices } from './prices';
 
@@ -111,6 +112,16 @@ export function evaluateFieldInYear(
 	return { result, practice };
 }
 
+/** The plan's hired people, as the budgets pay them. */
+export function hiredHelpOf(plan: PlanDocument): HiredHelp[] {
+	return plan.people
+		.filter((person) => person.role === 'hired')
+		.map((person) => ({
+			wageUsdPerHour: person.wageUsdPerHour ?? 0,
+			hoursAvailableByMonth: person.hoursAvailableByMonth
+		}));
+}
+
 /** Every field-year and farm-year; with `budgeted`, also each year's items for a partial budget. */
 function evaluateYears(plan: PlanDocument, budgeted: boolean) {
 	const lookups = planLookups(plan);
@@ -123,6 +134,7 @@ function evaluateYears(plan: PlanDocument, budgeted: boolean) {
 	const fieldYears: FieldYearResult[] = [];
 	const farmYears: FarmYearResult[] = [];
 	const items: { year: number; items: YearItems }[] = [];
+	const hiredHelp = hiredHelpOf(plan);
 	for (const [i, year] of planYears(plan).entries()) {
 		const prices = lookups.pricesByYear.get(year)!;
 		const thisYear: FieldYearResult[] = [];
@@ -141,7 +153,7 @@ function evaluateYears(plan: PlanDocument, budgeted: boolean) {
 			thisYear.push(result);
 			practices.push(practice);
 		}
-		const farmYear = evaluateFarmYear(year, thisYear, plan.herd, prices, plan.farm);
+		const farmYear = evaluateFarmYear(year, thisYear, plan.herd, prices, plan.farm, hiredHelp);
 		// Credits follow what the herd ate, known only once the farm-year has fed it.
 		const eatenShare = shareOutGrazing(thisYear, farmYear.grazingAuDays);
 		thisYear.forEach((result, f) => {

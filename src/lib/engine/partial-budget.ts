@@ -54,6 +54,7 @@ const categoryWords = {
 	'cash-rent': 'cash rent',
 	hay: 'purchased hay',
 	'chore-labour': 'chore labour',
+	'hired-labour': "hired help's wages less the labour rate",
 	'fixed-costs': 'fixed costs'
 } as const;
 export type Category = keyof typeof categoryWords;
@@ -138,7 +139,10 @@ export function yearItems(fieldYears: FieldYearResult[], farmYear: FarmYearResul
 			['hay', farmYear.hayCostUsd],
 			['chore-labour', farmYear.choreLabourUsd]
 		]),
-		farm: enterpriseYear('farm', 'Whole farm', [['fixed-costs', farmYear.fixedCostsUsd]])
+		farm: enterpriseYear('farm', 'Whole farm', [
+			['hired-labour', farmYear.hiredWageAdjustmentUsd],
+			['fixed-costs', farmYear.fixedCostsUsd]
+		])
 	};
 }
 

@@ -13,6 +13,8 @@ export interface CostGroups {
 	cashRentUsd: number;
 	hayUsd: number;
 	choreLabourUsd: number;
+	/** Hired help's wages less its hours at the labour rate (the labour groups charge every hour at it). */
+	hiredWageAdjustmentUsd: number;
 	fixedUsd: number;
 }
 
@@ -58,6 +60,7 @@ function farmYearSummary(farmYear: FarmYearResult, fieldYears: FieldYearResult[]
 		cashRentUsd: farmYear.cashRentUsd,
 		hayUsd: farmYear.hayCostUsd,
 		choreLabourUsd: farmYear.choreLabourUsd,
+		hiredWageAdjustmentUsd: farmYear.hiredWageAdjustmentUsd,
 		fixedUsd: farmYear.fixedCostsUsd
 	};
 	const nitrogen: FarmNitrogen = {

@@ -375,13 +375,13 @@ export function buildFarmModel(plan: PlanDocument, options: OptimiseOptions): Bu
 						{ kind: 'hired', wageUsdPerHour: wage, yearIndex: y, month: m },
 						{
 							name: `hired_at_${wage}_usd_${year}_${monthNumber(m)}`,
-							// The budgets charge every hour at the labour rate; a hired hour costs its wage.
+							// The budgets charge every hour at the labour rate, then a hired hour's wage in its place.
 							cost: prices[y].labourUsdPerHour - wage + weights.familyLabourUsdPerHour,
 							lower: 0,
 							upper: hours[m],
 							integer: false
 						},
-						years.map(() => 0)
+						years.map((_, i) => (i === y ? prices[y].labourUsdPerHour - wage : 0))
 					)
 				);
 			}
@@ -513,7 +513,7 @@ export function buildFarmModel(plan: PlanDocument, options: OptimiseOptions): Bu
 
 	const assumptions = [
 		"Each field's numbers come from the same budgets as a plan's: its N credits, residue and grazing follow the rotation it is given.",
-		'Every hour of work is charged at the price set’s labour rate, as in the budgets; a hired hour costs its wage instead, and the difference is in the objective, not in the net return.'
+		'Every hour of work is charged at the price set’s labour rate and a hired hour at its wage instead, as in the budgets; the family’s hours stop at what the people page gives them.'
 	];
 	if (eatenShare > 0) {
 		assumptions.push(

@@ -19,7 +19,10 @@ export default defineConfig({
 					environment: 'node',
 					include: ['tests/unit/**/*.test.ts'],
 					isolate: false,
-					sequence: { groupOrder: 0 }
+					sequence: { groupOrder: 0 },
+					// The solver and command-line tests wait on other processes (glpsol, tsx), which a busy
+					// machine slows well past vitest's default 5 s.
+					testTimeout: 30_000
 				}
 			},
 			{

@@ -67,8 +67,13 @@ export async function signInAs(page: Page, email: string, password = DEMO_PASSWO
 	await page.getByRole('button', { name: 'Sign in' }).click();
 }
 
-/** Saves a screenshot under screenshots/ (ignored by git) for a person to look at. */
+/**
+ * Saves a screenshot under screenshots/ (ignored by git) for a person to look at, when the run asks for
+ * them (`SCREENSHOTS=1 npm test -- --project e2e`): encoding full-page PNGs is a large share of the
+ * end-to-end time, and nobody looks at them in CI.
+ */
 export async function screenshot(page: Page, name: string) {
+	if (!process.env.SCREENSHOTS) return;
 	await mkdir('screenshots', { recursive: true });
 	await page.screenshot({ path: `screenshots/${name}.png`, fullPage: true });
 }

@@ -22,6 +22,6 @@ export const capturedMailQuerySchema = z.object({
 	to: emailSchema.optional(),
 	limit: z.coerce
 		.number({ error: 'Enter the limit as a number.' })
-		.pipe(amount('the limit', { min: 1, max: 500, integer: true, unit: 'messages' }))
+		.pipe(amount('the limit', { min: 1, max: 500, integer: true }))
 		.default(50)
 });

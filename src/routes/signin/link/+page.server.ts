@@ -1,4 +1,4 @@
-import { fail, redirect } from '@sveltejs/kit';
+import { fail, isRedirect, redirect } from '@sveltejs/kit';
 import { z } from 'zod';
 import { emailSchema } from '$lib/schemas/account';
 import { toFieldErrors } from '$lib/schemas/issues';
@@ -14,11 +14,11 @@ import type { Actions, PageServerLoad } from './$types';
 const linkRequests = postgresSignInLinkRequests(pool);
 const linkSchema = z.object({ email: emailSchema });
 
-// The form lives on the sign-in page; this page only shows it again with its message.
+// The form sits on the sign-in page too; this page shows it alone, and again with its message.
 export const load = (({ locals, url }) => {
 	const redirectTo = safeRedirect(url.searchParams.get('redirectTo'));
 	if (locals.user) redirect(303, redirectTo);
-	redirect(303, `/signin?redirectTo=${encodeURIComponent(redirectTo)}`);
+	return { redirectTo };
 }) satisfies PageServerLoad;
 
 export const actions = {
@@ -47,7 +47,15 @@ export const actions = {
 						: 'Sign-in links cannot be sent right now. Try again in a few minutes.'
 			});
 		}
-		// Auth.js mails the link and redirects to /signin/check-email.
-		await signIn(event);
+		// Auth.js mails the link, then redirects to its verify-request step, which only sends the
+		// browser on to pages.verifyRequest: go there in one step.
+		try {
+			await signIn(event);
+		} catch (err) {
+			if (isRedirect(err) && new URL(err.location, event.url).pathname === '/auth/verify-request') {
+				redirect(303, '/signin/check-email');
+			}
+			throw err;
+		}
 	}
 } satisfies Actions;

@@ -62,7 +62,7 @@ export async function useSession(context: BrowserContext, cookies: SessionCookie
 
 export async function signInAs(page: Page, email: string, password = DEMO_PASSWORD) {
 	await page.goto('/signin');
-	await page.getByLabel('E-mail').fill(email);
+	await page.getByLabel('E-mail', { exact: true }).fill(email);
 	await page.getByLabel('Password').fill(password);
 	await page.getByRole('button', { name: 'Sign in' }).click();
 }

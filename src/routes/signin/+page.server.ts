@@ -3,6 +3,7 @@ import { fail, redirect } from '@sveltejs/kit';
 import { signInSchema } from '$lib/schemas/account';
 import { toFieldErrors } from '$lib/schemas/issues';
 import { signIn } from '$lib/server/auth/auth';
+import { safeRedirect } from '$lib/server/auth/redirects';
 import type { Actions, PageServerLoad } from './$types';
 
 const noMatch = { status: 400, message: 'That e-mail and password do not match an account.' };
@@ -20,11 +21,18 @@ const failures = new Map([
 ]);
 const failureOf = (code: string | null) => failures.get(code ?? '') ?? noMatch;
 
+// Auth.js's own error names for the e-mailed link, as it puts them in the URL.
+const linkFailures = new Map([
+	['Verification', 'That sign-in link has expired or was already used. Ask for a new one below.'],
+	['EmailSignin', 'The sign-in link could not be sent. Try again in a few minutes.']
+]);
+
 export const load = (({ locals, url }) => {
 	const redirectTo = safeRedirect(url.searchParams.get('redirectTo'));
 	if (locals.user) redirect(303, redirectTo);
-	const failure = url.searchParams.get('error')
-		? failureOf(url.searchParams.get('code')).message
+	const error = url.searchParams.get('error');
+	const failure = error
+		? (linkFailures.get(error) ?? failureOf(url.searchParams.get('code')).message)
 		: null;
 	return { redirectTo, failure };
 }) satisfies PageServerLoad;
@@ -55,8 +63,3 @@ export const actions = {
 		}
 	}
 } satisfies Actions;
-
-/** Only paths on this site, so a crafted link cannot send someone elsewhere after sign-in. */
-function safeRedirect(target: string | null): string {
-	return target && target.startsWith('/') && !target.startsWith('//') ? target : '/farms';
-}

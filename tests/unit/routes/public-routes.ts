@@ -24,6 +24,17 @@ export const publicHandlers: { file: string; handlers: string[]; reason: string 
 		reason: 'Creating an account is for someone who has none yet.'
 	},
 	{
+		file: 'src/routes/signin/link/+page.server.ts',
+		handlers: ['load', 'actions.default'],
+		reason: 'Asking for an e-mailed sign-in link is how a visitor signs in without a password.'
+	},
+	{
+		file: 'src/routes/invitations/[token]/+page.server.ts',
+		handlers: ['load'],
+		reason:
+			'An invitee may have no account yet: the page says what the link offers (or why it no longer works) and sends them to sign up or sign in; joining (the action) needs a signed-in user.'
+	},
+	{
 		file: 'src/routes/signout/+page.server.ts',
 		handlers: ['load', 'actions.default'],
 		reason: 'Signing out must work when the session has already ended; the page only redirects.'

@@ -73,3 +73,34 @@ export async function limitedSignIn<User>(
 	}
 	return user;
 }
+
+// Sign-in links: five requests per e-mail address an hour, so nobody can fill someone's inbox
+// (common practice, no published source for the numbers).
+export const signInLinkLimits = { points: 5, duration: 60 * 60 };
+
+/** The sign-in link requests per e-mail, kept in PostgreSQL beside the failed sign-ins. */
+export function postgresSignInLinkRequests(pool: Pool): Pick<RateLimiterAbstract, 'consume'> {
+	return new RateLimiterPostgres({
+		storeClient: pool,
+		storeType: 'pool',
+		tableName: 'sign_in_limits',
+		tableCreated: true,
+		keyPrefix: 'signin-link',
+		...signInLinkLimits
+	});
+}
+
+/** Counts one link request: `ok`, `throttled` once the hour's requests are used, `unavailable` on a store error. */
+export async function countSignInLinkRequest(
+	store: Pick<RateLimiterAbstract, 'consume'>,
+	email: string
+): Promise<'ok' | 'throttled' | 'unavailable'> {
+	try {
+		await store.consume(email);
+		return 'ok';
+	} catch (rejection) {
+		if (rejection instanceof RateLimiterRes) return 'throttled';
+		console.error(`Sign-in link for ${email} refused: could not count the request.`, rejection);
+		return 'unavailable';
+	}
+}

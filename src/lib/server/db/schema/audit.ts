@@ -1,4 +1,5 @@
 import { bigserial, index, jsonb, pgTable, text, timestamp, uuid } from 'drizzle-orm/pg-core';
+import type { FarmRole } from '../../../roles';
 import { users } from './auth';
 import { farms } from './farms';
 
@@ -36,6 +37,17 @@ export interface AuditDetails {
 	'person.created': { personId: string; name: string };
 	'person.updated': { personId: string; name: string };
 	'person.deleted': { personId: string; name: string };
+	'invitation.created': InvitationDetail;
+	'invitation.revoked': InvitationDetail;
+	'invitation.accepted': InvitationDetail;
+	'member.removed': { memberId: string; email: string; role: FarmRole };
+}
+
+/** An invitation in the log: which one, to whom, for what role. */
+interface InvitationDetail {
+	invitationId: string;
+	email: string;
+	role: FarmRole;
 }
 export type AuditAction = keyof AuditDetails;
 

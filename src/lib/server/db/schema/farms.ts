@@ -95,7 +95,17 @@ export const invitations = pgTable(
 		invitedById: uuid().references(() => users.id, { onDelete: 'set null' }),
 		expiresAt: timestamp({ withTimezone: true }).notNull(),
 		acceptedAt: timestamp({ withTimezone: true }),
+		/** Who followed the link: the account the membership was given to. */
+		acceptedById: uuid().references(() => users.id, { onDelete: 'set null' }),
+		/** Set when an owner withdraws the invitation; its link then refuses. */
+		revokedAt: timestamp({ withTimezone: true }),
+		revokedById: uuid().references(() => users.id, { onDelete: 'set null' }),
 		...timestamps
 	},
 	(t) => [index().on(t.farmId), index().on(t.email)]
 );
+
+export const invitationsRelations = relations(invitations, ({ one }) => ({
+	farm: one(farms, { fields: [invitations.farmId], references: [farms.id] }),
+	invitedBy: one(users, { fields: [invitations.invitedById], references: [users.id] })
+}));

@@ -162,8 +162,13 @@ export function breakEven(result: PlanResult): BreakEven {
 	);
 	for (const fy of result.fieldYears) fieldYearsByYear.get(fy.year)?.push(fy);
 
+	const horizonTotals = cropTotals(result.fieldYears);
+	// Every year lists its crops in the same order: the order they first appear in the plan.
+	const place = new Map(horizonTotals.map((t, i) => [t.crop, i]));
 	const years = result.farmYears.map((farmYear) => {
-		const totals = cropTotals(fieldYearsByYear.get(farmYear.year)!);
+		const totals = cropTotals(fieldYearsByYear.get(farmYear.year)!).sort(
+			(a, b) => place.get(a.crop)! - place.get(b.crop)!
+		);
 		return {
 			year: farmYear.year,
 			crops: totals.map((t) => cropBreakEven(t, farmYear.netReturnUsd)),
@@ -176,7 +181,7 @@ export function breakEven(result: PlanResult): BreakEven {
 	return {
 		years,
 		horizon: {
-			crops: cropTotals(result.fieldYears).map((t) => cropBreakEven(t, revenueUsd - costsUsd)),
+			crops: horizonTotals.map((t) => cropBreakEven(t, revenueUsd - costsUsd)),
 			farm: farmBreakEven(revenueUsd, costsUsd)
 		}
 	};

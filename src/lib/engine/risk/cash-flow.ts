@@ -120,7 +120,7 @@ const lineLabels: Record<CashFlowLineKey, string> = {
 	seed: 'Seed and cover seed',
 	fertiliser: 'Fertiliser',
 	chemicals: 'Chemicals',
-	'other-direct': 'Drying, hauling, insurance, other',
+	'other-direct': 'Drying, hauling, insurance',
 	'custom-hire': 'Custom hire',
 	fuel: 'Diesel',
 	repairs: 'Machinery repairs',

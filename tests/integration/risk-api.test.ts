@@ -111,7 +111,7 @@ describe('answers', () => {
 		const body = await response.json();
 		expect(body.plan).toMatchObject({ id: planId, startYear: 2027, years: 5 });
 		expect(body.breakEven).toEqual(asJson(breakEven(evaluatePlan(document))));
-		expect(body.breakEven.years[0].crops.map((c: { crop: string }) => c.crop)).toEqual([
+		expect(body.breakEven.years[0].crops.map((c: { crop: string }) => c.crop).sort()).toEqual([
 			'corn',
 			'soybean'
 		]);
@@ -152,8 +152,7 @@ describe('the farm’s cash-flow settings', () => {
 	};
 
 	it('are refused to a reviewer and refused whole when a value is out of range', async () => {
-		const refused = await lender.action(page(), good);
-		expect(refused).toMatchObject({ type: 'error', status: 403 });
+		expect((await lender.postForm(page(), good)).status).toBe(403);
 		const bad = await owner.action(page(), {
 			...good,
 			startingCashUsd: '-5',

@@ -12,6 +12,7 @@ import { parsePlanDocument, type PlanDocument } from '../../src/lib/schemas/plan
 import { farmCashFlowSettings } from '../../src/lib/server/db/schema';
 import { testDb } from '../support/db';
 import { demoFarmId, farmFromScenario } from '../support/farms';
+import { formatUsd } from '../../src/lib/format';
 import { Client, newUser } from '../support/http';
 import { reviewerOf } from './farm-setup-support';
 
@@ -185,5 +186,22 @@ describe('the farm’s cash-flow settings', () => {
 			for (const month of year.months)
 				expect(month.closingBalanceUsd).toBeGreaterThanOrEqual(10_000 - 1e-6);
 		}
+	});
+
+	it('stand two plans side by side on the cash-flow page: the same plan, the same peak', async () => {
+		const copied = await owner.json(`/api/v1/farms/${farmId}/plans/${planId}/copy`, 'POST', {
+			name: 'Copy for the lender'
+		});
+		expect(copied.status).toBe(201);
+		const copy = ((await copied.json()) as { plan: { id: string } }).plan.id;
+		const html = await (
+			await lender.fetch(`${page()}?against=${copy}`, { headers: { Accept: 'text/html' } })
+		).text();
+		const peak = (await (await lender.fetch(url('cash-flow'))).json()).cashFlow.peakLoanUsd;
+		const row = /<tr data-row="compare-horizon"[\s\S]*?<\/tr>/.exec(html)?.[0] ?? '';
+		// This plan's peak, the copy's, and no difference between them.
+		expect(row.split(formatUsd(peak)).length - 1).toBe(2);
+		expect(row).toContain('$0');
+		expect(html).toContain('Copy for the lender');
 	});
 });

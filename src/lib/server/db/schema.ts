@@ -13,3 +13,4 @@ export * from './schema/rotations';
 export * from './schema/plans';
 export * from './schema/audit';
 export * from './schema/mail';
+export * from './schema/cash-flow';

@@ -37,6 +37,7 @@ export interface AuditDetails {
 	'person.created': { personId: string; name: string };
 	'person.updated': { personId: string; name: string };
 	'person.deleted': { personId: string; name: string };
+	'cash-flow-settings.updated': Record<string, never>;
 	'invitation.created': InvitationDetail;
 	'invitation.revoked': InvitationDetail;
 	'invitation.accepted': InvitationDetail;

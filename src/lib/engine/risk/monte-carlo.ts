@@ -249,8 +249,8 @@ const histogramBins = 30;
 function spread(values: number[]): Spread {
 	const [p5, p25, p50, p75, p95] = quantileSeq(values, [0.05, 0.25, 0.5, 0.75, 0.95]) as number[];
 	return {
-		meanUsd: mean(values) as number,
-		standardDeviationUsd: values.length > 1 ? (std(values) as number) : 0,
+		meanUsd: Number(mean(values)),
+		standardDeviationUsd: values.length > 1 ? Number(std(values)) : 0,
 		percentilesUsd: { p5, p25, p50, p75, p95 },
 		lossProbability: values.filter((v) => v < 0).length / values.length
 	};

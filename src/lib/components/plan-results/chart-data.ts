@@ -98,3 +98,9 @@ export function tickFormat(top: number): (value: number) => string {
 export function inOrder(series: { label: string }[]): string {
 	return series.map((s) => s.label).join(', ');
 }
+
+/** Shades for steps of a change, lightest for the smallest: falls in loam browns, rises in clover greens. */
+export const stepShades = {
+	falls: [loam[300], loam[500], loam[700]],
+	rises: [clover[300], clover[500], clover[700]]
+} as const;

@@ -12,4 +12,5 @@ export * from './schema/practices';
 export * from './schema/rotations';
 export * from './schema/plans';
 export * from './schema/audit';
+export * from './schema/cash-flow';
 export * from './schema/jobs';

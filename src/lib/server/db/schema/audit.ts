@@ -36,6 +36,7 @@ export interface AuditDetails {
 	'person.created': { personId: string; name: string };
 	'person.updated': { personId: string; name: string };
 	'person.deleted': { personId: string; name: string };
+	'cash-flow-settings.updated': Record<string, never>;
 }
 export type AuditAction = keyof AuditDetails;
 

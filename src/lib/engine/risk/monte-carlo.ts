@@ -5,96 +5,20 @@ import { mean, quantileSeq, std } from 'mathjs';
 import type { PlanDocument } from '../../schemas/plan-file';
 import { feedingYear } from '../forage';
 import { evaluatePlan } from '../index';
+import {
+	defaultCropDistribution,
+	type Comovement,
+	type CropDistribution,
+	type CropDistributionDefault
+} from './distribution-defaults';
 
-/**
- * How one crop's yield and price move around the plan's numbers. Yield and price are each drawn as
- * normal around the plan's expected value (the yield the plan computes, the price of the year's price
- * set), with a coefficient of variation (standard deviation ÷ mean), and the two are correlated.
- */
-export interface CropDistribution {
-	crop: string;
-	yieldCvPercent: number;
-	priceCvPercent: number;
-	/** Correlation of the crop's price with its own yield, −1 to 1 (negative: a short crop sells dear). */
-	priceYieldCorrelation: number;
-}
-
-export interface CropDistributionDefault extends CropDistribution {
-	/** Where the numbers come from, in words a reader can check. */
-	source: string;
-}
-
-const memory = 'from memory, not re-read: verify against your county before relying on them';
-const noSource = 'common practice, no published source';
-
-/**
- * Defaults by built-in crop. Yield CVs are farm-level, year to year (a farm's yields vary more than
- * its county's); price CVs are the spread of the harvest price around the price expected at planting.
- * Farm-level corn and soybean yield CVs of about 15 % and 12 % in the Corn Belt: Univ. of Illinois
- * farmdoc crop-insurance articles (Schnitkey) on farm yield variability, from memory. Price CVs of
- * about 20 % (corn) and 16 % (soybean): the USDA RMA price volatility factors for revenue insurance,
- * which have run about 0.15–0.30, from memory. Price–yield correlation negative (the "natural hedge"
- * of revenue insurance: a short crop raises the price), about −0.3 for corn and −0.2 for soybean at
- * farm level, weaker than at national level: farmdoc and extension risk-management material, from
- * memory. Small grains and forages: common practice, no published source.
- */
-const cropDefaults = new Map<string, Omit<CropDistributionDefault, 'crop'>>([
-	[
-		'corn',
-		{
-			yieldCvPercent: 15,
-			priceCvPercent: 20,
-			priceYieldCorrelation: -0.3,
-			source: `farmdoc (Univ. of Illinois) farm yield variability; USDA RMA price volatility factors — ${memory}`
-		}
-	],
-	[
-		'soybean',
-		{
-			yieldCvPercent: 12,
-			priceCvPercent: 16,
-			priceYieldCorrelation: -0.2,
-			source: `farmdoc (Univ. of Illinois) farm yield variability; USDA RMA price volatility factors — ${memory}`
-		}
-	],
-	[
-		'wheat',
-		{
-			yieldCvPercent: 18,
-			priceCvPercent: 20,
-			priceYieldCorrelation: -0.2,
-			source: `USDA RMA price volatility factors for wheat — ${memory}; yield CV ${noSource}`
-		}
-	]
-]);
-
-const otherCrop = {
-	yieldCvPercent: 20,
-	priceCvPercent: 15,
-	priceYieldCorrelation: -0.2,
-	source: noSource
-};
-
-export function defaultCropDistribution(crop: string): CropDistributionDefault {
-	return { crop, ...(cropDefaults.get(crop) ?? otherCrop) };
-}
-
-/**
- * How the crops move together within a year. Each crop's yield shock is a shared weather shock plus
- * its own (`sharedWeather` is the correlation of two crops' yields); prices likewise share a market
- * shock (`sharedMarket` is the correlation of two crops' prices before each is tied to its own yield).
- * Years are drawn independently of each other.
- */
-export interface Comovement {
-	sharedWeather: number;
-	sharedMarket: number;
-}
-
-/**
- * Corn and soybean yields on one farm move together (same weather) and so do their prices (one feed
- * grain market): correlations of about 0.5 and 0.6 — from memory of Corn Belt farm records, not re-read.
- */
-export const defaultComovement: Comovement = { sharedWeather: 0.5, sharedMarket: 0.6 };
+export {
+	defaultComovement,
+	defaultCropDistribution,
+	type Comovement,
+	type CropDistribution,
+	type CropDistributionDefault
+} from './distribution-defaults';
 
 export interface MonteCarloOptions extends Comovement {
 	draws: number;
@@ -256,13 +180,20 @@ function spread(values: number[]): Spread {
 	};
 }
 
-function histogram(values: number[]) {
+/** The lowest and highest of several lists, for histograms that share their ranges. */
+function extent(lists: number[][]): [number, number] {
 	let low = Infinity;
 	let high = -Infinity;
-	for (const v of values) {
-		if (v < low) low = v;
-		if (v > high) high = v;
+	for (const values of lists) {
+		for (const v of values) {
+			if (v < low) low = v;
+			if (v > high) high = v;
+		}
 	}
+	return [low, high];
+}
+
+function histogram(values: number[], [low, high]: [number, number]) {
 	const width = high > low ? (high - low) / histogramBins : 1;
 	const counts = new Array<number>(histogramBins).fill(0);
 	for (const v of values) counts[Math.min(Math.floor((v - low) / width), histogramBins - 1)]++;
@@ -338,8 +269,15 @@ export function createMonteCarlo(
 		},
 		result(): MonteCarloResult {
 			if (done < draws) throw new Error('The Monte Carlo has not drawn every draw yet.');
-			const planRisk = summarise(plan, planNet);
-			const referenceRisk = compared ? summarise(reference, referenceNet) : null;
+			const planAverage = averageByDraw(planNet);
+			const referenceAverage = compared ? averageByDraw(referenceNet) : null;
+			// One set of ranges for both plans, so their histograms can be read against each other.
+			const range = extent(referenceAverage ? [planAverage, referenceAverage] : [planAverage]);
+			const planRisk = summarise(plan, planNet, planAverage, range);
+			const referenceRisk =
+				compared && referenceAverage
+					? summarise(reference, referenceNet, referenceAverage, range)
+					: null;
 			let wins = 0;
 			if (compared) {
 				for (let d = 0; d < draws; d++) {
@@ -361,15 +299,26 @@ export function createMonteCarlo(
 	};
 }
 
-function summarise(model: RiskModel, net: Float64Array[]): PlanRisk {
+/** Each draw's average net return a year over the horizon. */
+function averageByDraw(net: Float64Array[]): number[] {
 	const draws = net[0]?.length ?? 0;
 	const average = new Array<number>(draws).fill(0);
+	for (const year of net) for (let d = 0; d < draws; d++) average[d] += year[d] / net.length;
+	return average;
+}
+
+function summarise(
+	model: RiskModel,
+	net: Float64Array[],
+	average: number[],
+	range: [number, number]
+): PlanRisk {
+	const draws = average.length;
 	let lossYears = 0;
 	let anyLoss = 0;
 	for (let d = 0; d < draws; d++) {
 		let lost = false;
 		for (const year of net) {
-			average[d] += year[d] / net.length;
 			if (year[d] < 0) {
 				lossYears++;
 				lost = true;
@@ -388,7 +337,7 @@ function summarise(model: RiskModel, net: Float64Array[]): PlanRisk {
 		horizonAverage: { plannedUsd: planned, ...spread(average) },
 		lossYearProbability: lossYears / (draws * net.length),
 		anyLossYearProbability: anyLoss / draws,
-		histogram: histogram(average)
+		histogram: histogram(average, range)
 	};
 }
 

@@ -62,10 +62,19 @@ export async function stopJobQueue() {
 	await boss?.stop({ graceful: true, timeout: 5000 });
 }
 
+/** This server's own worker of each queue, woken when this server sends a job (others poll). */
+const localWorkers = new Map<JobKind, string>();
+
+export function registerLocalWorker(kind: JobKind, workerId: string) {
+	localWorkers.set(kind, workerId);
+}
+
 export async function sendJob<T extends object>(kind: JobKind, data: T & JobOwner) {
 	const boss = await jobQueue();
 	const id = await boss.send(kind, data);
 	if (!id) throw new Error(`The job queue refused a ${kind} job`);
+	const worker = localWorkers.get(kind);
+	if (worker) boss.notifyWorker(worker);
 	return id;
 }
 

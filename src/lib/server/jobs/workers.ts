@@ -5,17 +5,18 @@ import type PgBoss from 'pg-boss';
 import { db } from '$lib/server/db';
 import { deleteStaleJobProgress } from '$lib/server/db/jobs';
 import { runMonteCarloJob, type MonteCarloJobData } from './monte-carlo';
-import { jobQueue, stopJobQueue } from './queue';
+import { jobQueue, registerLocalWorker, stopJobQueue } from './queue';
 
 let stopping = false;
 let workers: Promise<void> | undefined;
 
 async function startWorkers(boss: PgBoss) {
-	await boss.work<MonteCarloJobData>(
+	const workerId = await boss.work<MonteCarloJobData>(
 		'monte-carlo',
 		{ pollingIntervalSeconds: 1, batchSize: 1 },
 		async ([job]) => runMonteCarloJob(job.id, job.data, () => stopping)
 	);
+	registerLocalWorker('monte-carlo', workerId);
 	// pg-boss deletes jobs a week after they end; their progress rows go a week later.
 	await deleteStaleJobProgress(db, 14);
 }

@@ -39,9 +39,9 @@ describe('a Monte Carlo run on the risk page', () => {
 		await page.setViewportSize(viewports.desktop);
 		await page.goto(riskPath);
 		const form = page.getByRole('form', { name: 'Monte Carlo settings' });
-		await expect(form.getByRole('spinbutton', { name: 'Corn yield CV, %' }).inputValue()).resolves.toBe(
-			'15'
-		);
+		await expect(
+			form.getByRole('spinbutton', { name: 'Corn yield CV, %' }).inputValue()
+		).resolves.toBe('15');
 		// Enough draws that the run is still going when the page first asks how far it has got.
 		await form.getByRole('spinbutton', { name: 'Draws' }).fill('40000');
 		await form.getByRole('spinbutton', { name: /^Seed/ }).fill('2027');
@@ -58,7 +58,7 @@ describe('a Monte Carlo run on the risk page', () => {
 		expect(beats).toMatch(/^\s*\d{1,3} %\s*$/);
 		// A row for each of the plan's five years and the average, each with its percentiles.
 		await expect(result.locator('tr[data-row^="spread-"]').count()).resolves.toBe(6);
-		await expect(page.getByText('40,000 draws, seed 2027.')).resolves.toBeDefined();
+		await page.getByText('40,000 draws, seed 2027.').waitFor();
 		await expect(page.getByTestId('credit-caution').count()).resolves.toBeGreaterThan(0);
 		await screenshot(page, 'risk-monte-carlo-1280');
 
@@ -66,7 +66,9 @@ describe('a Monte Carlo run on the risk page', () => {
 		await page.setViewportSize(viewports.phone);
 		await page.reload();
 		await result.waitFor({ timeout: 15_000 });
-		await expect(result.locator('[data-cell="beats-reference"]').textContent()).resolves.toBe(beats);
+		await expect(result.locator('[data-cell="beats-reference"]').textContent()).resolves.toBe(
+			beats
+		);
 		expect(await overflow(page)).toBeLessThanOrEqual(0);
 		await screenshot(page, 'risk-monte-carlo-390');
 	});

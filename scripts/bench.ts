@@ -9,7 +9,8 @@
  * answer with every field-year (no target). Then, in Chromium on the demo farm's reference plan, the time
  * from a changed rotation to new numbers on screen: median of 20 edits under 150 ms, with the slowest
  * beside it (scripts/bench-editor.ts; `npm run bench` sets up the database and the build it needs).
- * Between the two, the optimiser on generated farms, HiGHS beside glpsol (scripts/bench-optimiser.ts).
+ * Between the two, the optimiser on generated farms, HiGHS beside glpsol (scripts/bench-optimiser.ts),
+ * after the Monte Carlo: 10,000 draws of the demo farm's plan, under 10 s (scripts/bench-monte-carlo.ts).
  */
 import { readFileSync } from 'node:fs';
 import { performance } from 'node:perf_hooks';
@@ -18,6 +19,7 @@ import { nonFiniteNumberPaths } from '../src/lib/engine/finite';
 import { partialBudget, yearItems } from '../src/lib/engine/partial-budget';
 import { parsePlanDocument, type PlanDocument } from '../src/lib/schemas/plan-file';
 import { editorTimings, type EditorTimings } from './bench-editor';
+import { monteCarloTargetMs, monteCarloTimings } from './bench-monte-carlo';
 import { optimiserTimings, type OptimiserBench } from './bench-optimiser';
 
 const fieldCount = 100;
@@ -210,6 +212,19 @@ for (const row of sizes) {
 }
 console.log(`${pad('peak RSS (maxRSS)', 28)}${num(maxRssMb, 1)}  ${'MB'.padStart(8)}`);
 console.log(`${pad('peak JS heap (sampled)', 28)}${num(peakHeapMb, 1)}  ${'MB'.padStart(8)}`);
+
+{
+	const mc = monteCarloTimings();
+	console.log(
+		`\nMonte Carlo: ${mc.draws.toLocaleString('en-US')} draws of "${mc.planName}" and ` +
+			`"${mc.referenceName}" on the same draws (share beating the reference: ${mc.beatsReferenceProbability})`
+	);
+	const rows = [
+		{ what: 'draws: median of runs', ms: median(mc.runMs), target: monteCarloTargetMs },
+		{ what: 'draws: slowest run', ms: Math.max(...mc.runMs), target: null }
+	];
+	printTimes(rows, 'ms');
+}
 
 let optimiser: OptimiserBench | undefined;
 try {

@@ -1,8 +1,15 @@
-import type { Handle, HandleServerError } from '@sveltejs/kit';
+import type { Handle, HandleServerError, ServerInit } from '@sveltejs/kit';
 import { sequence } from '@sveltejs/kit/hooks';
+import { building } from '$app/environment';
 import { handle as authHandle } from '$lib/server/auth/auth';
 import { db } from '$lib/server/db';
 import { findSessionUser } from '$lib/server/db/users';
+import { startJobWorkers } from '$lib/server/jobs/workers';
+
+/** Every app server works the job queue (Monte Carlo runs); a build never starts it. */
+export const init: ServerInit = async () => {
+	if (!building) await startJobWorkers();
+};
 
 /** Puts the signed-in user (still existing, with current site role) on `locals` for every request. */
 const loadUser: Handle = async ({ event, resolve }) => {

@@ -9,14 +9,24 @@ import { baseUrl, DEMO_PASSWORD } from './server';
 export class Client {
 	private cookies = new Map<string, string>();
 
+	/** `base`: another app server than the tests' own (one a test starts itself). */
+	constructor(private readonly base = baseUrl) {}
+
+	/** The same person (the same session cookies) on another app server. */
+	on(base: string): Client {
+		const other = new Client(base);
+		for (const [name, value] of this.cookies) other.cookies.set(name, value);
+		return other;
+	}
+
 	async fetch(path: string, init: RequestInit = {}): Promise<Response> {
 		const headers = new Headers(init.headers);
-		headers.set('Origin', baseUrl);
+		headers.set('Origin', this.base);
 		headers.set('Connection', 'close');
 		if (this.cookies.size) {
 			headers.set('Cookie', [...this.cookies].map(([k, v]) => `${k}=${v}`).join('; '));
 		}
-		const response = await fetch(baseUrl + path, { ...init, headers, redirect: 'manual' });
+		const response = await fetch(this.base + path, { ...init, headers, redirect: 'manual' });
 		for (const cookie of response.headers.getSetCookie()) {
 			const [pair] = cookie.split(';');
 			const [name, ...value] = pair.split('=');

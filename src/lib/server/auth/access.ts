@@ -4,6 +4,7 @@ import type { FarmRole } from '$lib/roles';
 import { db } from '$lib/server/db';
 import { findMembership } from '$lib/server/db/farms';
 import { findPlan } from '$lib/server/db/plans';
+import { findJob } from '$lib/server/jobs/queue';
 
 /** The one table that says what each farm role may do. */
 export const farmPermissions = {
@@ -74,4 +75,18 @@ export async function requirePlanAccess(
 	const plan = await findPlan(db, access.farm.id, planId);
 	if (!plan) error(404, 'Plan not found.');
 	return { ...access, plan };
+}
+
+/**
+ * A queued job (a Monte Carlo run), for a member of the job's farm who may view it. Any other id, a job
+ * of a farm the user is not a member of, or no job at all: 404 `Job not found.` alike.
+ */
+export async function requireJobAccess(event: Pick<RequestEvent, 'locals' | 'url'>, jobId: string) {
+	const user = requireUser(event);
+	const job = await findJob(jobId);
+	const membership = job && (await findMembership(db, job.owner.farmId, user.id));
+	if (!job || !membership || !roleAllows(membership.role, 'farm:view')) {
+		error(404, 'Job not found.');
+	}
+	return { user, job, farm: membership.farm, role: membership.role };
 }

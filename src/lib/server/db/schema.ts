@@ -14,3 +14,4 @@ export * from './schema/plans';
 export * from './schema/audit';
 export * from './schema/mail';
 export * from './schema/cash-flow';
+export * from './schema/jobs';

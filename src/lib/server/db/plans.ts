@@ -212,12 +212,20 @@ export async function savePlanVersion(
 			changeNote: save.changeNote,
 			restoredFromVersion: save.restoredFromVersion
 		});
-		await insertAuditEntry(tx, {
-			farmId: save.farmId,
-			userId: save.userId,
-			action: 'plan.saved',
-			detail: { planId: save.planId, name: save.name, version: moved.version }
-		});
+		const saved = { planId: save.planId, name: save.name, version: moved.version };
+		await (save.restoredFromVersion === undefined
+			? insertAuditEntry(tx, {
+					farmId: save.farmId,
+					userId: save.userId,
+					action: 'plan.saved',
+					detail: saved
+				})
+			: insertAuditEntry(tx, {
+					farmId: save.farmId,
+					userId: save.userId,
+					action: 'plan.restored',
+					detail: { ...saved, fromVersion: save.restoredFromVersion }
+				}));
 		return { saved: true, version: moved.version };
 	});
 }

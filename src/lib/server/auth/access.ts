@@ -7,7 +7,7 @@ import { findPlan } from '$lib/server/db/plans';
 
 /** The one table that says what each farm role may do. */
 export const farmPermissions = {
-	owner: ['farm:view', 'farm:edit', 'plan:edit', 'plan:delete', 'members:manage'],
+	owner: ['farm:view', 'farm:edit', 'plan:edit', 'plan:delete', 'members:manage', 'farm:audit'],
 	editor: ['farm:view', 'farm:edit', 'plan:edit'],
 	reviewer: ['farm:view', 'plan:review']
 } as const satisfies Record<FarmRole, readonly string[]>;

@@ -365,3 +365,9 @@ export async function findReferencePlan(db: Db | Tx, farmId: string) {
 		where: and(eq(plans.farmId, farmId), eq(plans.isReference, true))
 	});
 }
+
+/** The plans of several farms (a reviewer's), with the row fields a plan guard returns. */
+export async function listPlansForFarms(db: Db | Tx, farmIds: string[]): Promise<PlanRow[]> {
+	if (!farmIds.length) return [];
+	return db.query.plans.findMany({ where: inArray(plans.farmId, farmIds) });
+}

@@ -10,6 +10,7 @@ export const load = (async (event) => {
 		farm: { id: farm.id, name: farm.name, region: farm.region },
 		role,
 		canEdit: roleAllows(role, 'farm:edit'),
+		canSeeRecord: roleAllows(role, 'farm:audit'),
 		setup,
 		members
 	};

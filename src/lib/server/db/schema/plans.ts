@@ -15,6 +15,7 @@ import {
 	uuid
 } from 'drizzle-orm/pg-core';
 import type { Herd, PlanAdjustment } from '../../../schemas/plan-file';
+import { reviewDecisions } from '../../../schemas/reviews';
 
 export type StoredAdjustment = Omit<PlanAdjustment, 'fieldId' | 'practiceId'> & {
 	fieldRowId?: string;
@@ -26,7 +27,7 @@ import { farmReference, farms } from './farms';
 import { fields } from './fields';
 import { rotations } from './rotations';
 
-export const reviewDecision = pgEnum('review_decision', ['approved', 'changes_requested']);
+export const reviewDecision = pgEnum('review_decision', reviewDecisions);
 
 export const plans = pgTable(
 	'plans',

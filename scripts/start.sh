@@ -9,6 +9,7 @@ say 'migrating'
 npx tsx scripts/db/migrate.ts
 npx tsx scripts/db/seed-demo.ts
 ensure_build
+start_mail_sink $$
 
 cat <<MSG
 
@@ -20,7 +21,8 @@ cat <<MSG
     lender@furrowcast.test    lender, reviewer
     admin@furrowcast.test     site administrator
 
-  Ctrl-C stops the app; \`npm run db:stop\` stops PostgreSQL.
+  Mail is caught by the local sink: sign in as the admin and open $ORIGIN/admin/mail.
+  Ctrl-C stops the app and the sink; \`npm run db:stop\` stops PostgreSQL.
 
 MSG
 exec node build

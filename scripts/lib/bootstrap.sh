@@ -57,6 +57,7 @@ ORIGIN=http://127.0.0.1:$app_port
 FURROWCAST_DEMO=1
 ENV
 	fi
+	ensure_mail_env
 	set -a
 	# shellcheck disable=SC1091
 	. ./.env
@@ -64,6 +65,39 @@ ENV
 	# own limit the app states, with the form around it. An .env value wins.
 	BODY_SIZE_LIMIT=${BODY_SIZE_LIMIT:-2M}
 	set +a
+}
+
+# Mail goes to the local sink (scripts/mail-sink.ts) on 127.0.0.1; production sets SMTP_* to a real
+# server. Added to an .env written before the sink existed, so an older checkout keeps working.
+ensure_mail_env() {
+	if ! grep -q '^SMTP_PORT=' .env; then
+		say 'adding the local mail sink to .env'
+		local smtp_port=$((56000 + PATH_HASH % 900))
+		cat >>.env <<ENV
+SMTP_HOST=127.0.0.1
+SMTP_PORT=$smtp_port
+TEST_SMTP_PORT=$((smtp_port + 1000))
+MAIL_FROM="Furrowcast <no-reply@furrowcast.test>"
+ENV
+	fi
+}
+
+# Starts the mail sink in the background when mail goes to this machine; it stops when the process
+# with PID $1 (the script that will become the app) stops. Waits until it accepts connections.
+start_mail_sink() {
+	local parent=$1
+	case "${SMTP_HOST:-127.0.0.1}" in
+	127.0.0.1 | localhost) ;;
+	*) return 0 ;;
+	esac
+	say "starting the mail sink on 127.0.0.1:$SMTP_PORT (read mail at $ORIGIN/admin/mail)"
+	node --import tsx scripts/mail-sink.ts --port "$SMTP_PORT" --parent "$parent" &
+	local attempt
+	for attempt in $(seq 50); do
+		(exec 3<>"/dev/tcp/127.0.0.1/$SMTP_PORT") 2>/dev/null && return 0
+		sleep 0.2
+	done
+	die "the mail sink did not start on port $SMTP_PORT"
 }
 
 pg_bin_dir() {

@@ -12,3 +12,4 @@ export * from './schema/practices';
 export * from './schema/rotations';
 export * from './schema/plans';
 export * from './schema/audit';
+export * from './schema/mail';

@@ -20,6 +20,7 @@ npx tsx scripts/db/migrate.ts
 npx tsx scripts/db/seed-demo.ts
 ensure_chromium
 ensure_glpsol
+ensure_pdftotext
 ensure_build
 
 say 'tests'

@@ -210,6 +210,11 @@ ensure_glpsol() {
 	command -v glpsol >/dev/null || apt_install glpk-utils
 }
 
+# Poppler's pdftotext: the plan report's test reads the text of the PDF Chromium prints.
+ensure_pdftotext() {
+	command -v pdftotext >/dev/null || apt_install poppler-utils
+}
+
 # Builds the app unless the build is newer than every source file.
 ensure_build() {
 	if [ -f build/handler.js ] &&

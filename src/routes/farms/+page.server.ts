@@ -4,11 +4,15 @@ import { toFieldErrors } from '$lib/schemas/issues';
 import { requireUser } from '$lib/server/auth/access';
 import { db } from '$lib/server/db';
 import { createFarm, listFarmsForUser } from '$lib/server/db/farms';
+import { listPlansForReviewer } from '$lib/server/reviewer-home';
 import type { Actions, PageServerLoad } from './$types';
 
 export const load = (async (event) => {
 	const user = requireUser(event);
-	return { farms: await listFarmsForUser(db, user.id) };
+	const farms = await listFarmsForUser(db, user.id);
+	// A reviewer (a lender, an advisor) lands here: the plans of the farms they review, theirs to see first.
+	const reviewed = farms.filter((farm) => farm.role === 'reviewer').map((farm) => farm.id);
+	return { farms, toReview: await listPlansForReviewer(db, reviewed) };
 }) satisfies PageServerLoad;
 
 export const actions = {

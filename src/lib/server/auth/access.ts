@@ -8,7 +8,7 @@ import { findJob } from '$lib/server/jobs/queue';
 
 /** The one table that says what each farm role may do. */
 export const farmPermissions = {
-	owner: ['farm:view', 'farm:edit', 'plan:edit', 'plan:delete', 'members:manage'],
+	owner: ['farm:view', 'farm:edit', 'plan:edit', 'plan:delete', 'members:manage', 'farm:audit'],
 	editor: ['farm:view', 'farm:edit', 'plan:edit'],
 	reviewer: ['farm:view', 'plan:review']
 } as const satisfies Record<FarmRole, readonly string[]>;

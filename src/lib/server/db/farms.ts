@@ -1,4 +1,4 @@
-import { and, count, eq, sum } from 'drizzle-orm';
+import { and, count, eq, inArray, sum } from 'drizzle-orm';
 import type { FarmRole } from '$lib/roles';
 import type { FarmSettings } from '$lib/schemas/farm';
 import { insertAuditEntry } from './audit';
@@ -149,4 +149,10 @@ export async function getFarmSetup(db: Db | Tx, farmId: string) {
 		plans: planRows.reduce((total, row) => total + row.n, 0),
 		referencePlan: planRows.find((row) => row.isReference)?.name ?? null
 	};
+}
+
+/** Several farms' rows by id (a reviewer's farms). */
+export async function listFarmsByIds(db: Db | Tx, farmIds: string[]) {
+	if (!farmIds.length) return [];
+	return db.query.farms.findMany({ where: inArray(farms.id, farmIds) });
 }

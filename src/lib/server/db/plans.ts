@@ -212,12 +212,20 @@ export async function savePlanVersion(
 			changeNote: save.changeNote,
 			restoredFromVersion: save.restoredFromVersion
 		});
-		await insertAuditEntry(tx, {
-			farmId: save.farmId,
-			userId: save.userId,
-			action: 'plan.saved',
-			detail: { planId: save.planId, name: save.name, version: moved.version }
-		});
+		const saved = { planId: save.planId, name: save.name, version: moved.version };
+		await (save.restoredFromVersion === undefined
+			? insertAuditEntry(tx, {
+					farmId: save.farmId,
+					userId: save.userId,
+					action: 'plan.saved',
+					detail: saved
+				})
+			: insertAuditEntry(tx, {
+					farmId: save.farmId,
+					userId: save.userId,
+					action: 'plan.restored',
+					detail: { ...saved, fromVersion: save.restoredFromVersion }
+				}));
 		return { saved: true, version: moved.version };
 	});
 }
@@ -356,4 +364,10 @@ export async function findReferencePlan(db: Db | Tx, farmId: string) {
 	return db.query.plans.findFirst({
 		where: and(eq(plans.farmId, farmId), eq(plans.isReference, true))
 	});
+}
+
+/** The plans of several farms (a reviewer's), with the row fields a plan guard returns. */
+export async function listPlansForFarms(db: Db | Tx, farmIds: string[]): Promise<PlanRow[]> {
+	if (!farmIds.length) return [];
+	return db.query.plans.findMany({ where: inArray(plans.farmId, farmIds) });
 }

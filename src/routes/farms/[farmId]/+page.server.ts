@@ -11,6 +11,7 @@ export const load = (async (event) => {
 		role,
 		canEdit: roleAllows(role, 'farm:edit'),
 		canManageMembers: roleAllows(role, 'members:manage'),
+		canSeeRecord: roleAllows(role, 'farm:audit'),
 		setup,
 		members
 	};

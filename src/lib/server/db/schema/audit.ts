@@ -12,6 +12,15 @@ export interface AuditDetails {
 	'plan.created': { planId: string; name: string };
 	'plan.saved': { planId: string; name: string; version: number };
 	'plan.deleted': { planId: string; name: string };
+	'plan.restored': { planId: string; name: string; version: number; fromVersion: number };
+	'plan.shared': { planId: string; name: string; version: number };
+	'plan.reviewed': {
+		planId: string;
+		name: string;
+		version: number;
+		/** A comment alone, or the decision it came with. */
+		kind: 'comment' | 'approved' | 'changes_requested';
+	};
 	'plan.made-reference': { planId: string; name: string };
 	'field.created': { fieldId: string; name: string };
 	'field.updated': { fieldId: string; name: string };

@@ -15,6 +15,7 @@ import {
 	uuid
 } from 'drizzle-orm/pg-core';
 import type { Herd, PlanAdjustment } from '../../../schemas/plan-file';
+import { reviewDecisions } from '../../../schemas/reviews';
 
 export type StoredAdjustment = Omit<PlanAdjustment, 'fieldId' | 'practiceId'> & {
 	fieldRowId?: string;
@@ -26,7 +27,7 @@ import { farmReference, farms } from './farms';
 import { fields } from './fields';
 import { rotations } from './rotations';
 
-export const reviewDecision = pgEnum('review_decision', ['approved', 'changes_requested']);
+export const reviewDecision = pgEnum('review_decision', reviewDecisions);
 
 export const plans = pgTable(
 	'plans',
@@ -90,7 +91,8 @@ export const planVersionsRelations = relations(planVersions, ({ one, many }) => 
 	plan: one(plans, { fields: [planVersions.planId], references: [plans.id] }),
 	assignments: many(planFieldAssignments),
 	comments: many(comments),
-	reviews: many(reviews)
+	reviews: many(reviews),
+	shares: many(planShares)
 }));
 
 export const planFieldAssignments = pgTable(
@@ -166,4 +168,31 @@ export const reviewsRelations = relations(reviews, ({ one }) => ({
 		references: [planVersions.id]
 	}),
 	reviewer: one(users, { fields: [reviews.reviewerId], references: [users.id] })
+}));
+
+/**
+ * A plan version shared for review by an owner or editor: from then it awaits a reviewer's decision.
+ * Sharing the same version again (after changes were requested) adds a row; the newest counts.
+ */
+export const planShares = pgTable(
+	'plan_shares',
+	{
+		id: uuid().primaryKey().defaultRandom(),
+		planVersionId: uuid()
+			.notNull()
+			.references(() => planVersions.id, { onDelete: 'cascade' }),
+		sharedById: uuid().references(() => users.id, { onDelete: 'set null' }),
+		/** What the person sharing said to the reviewers ("Lower N on the east fields, as we discussed"). */
+		message: text().notNull().default(''),
+		createdAt: timestamp({ withTimezone: true }).notNull().defaultNow()
+	},
+	(t) => [index().on(t.planVersionId)]
+);
+
+export const planSharesRelations = relations(planShares, ({ one }) => ({
+	planVersion: one(planVersions, {
+		fields: [planShares.planVersionId],
+		references: [planVersions.id]
+	}),
+	sharedBy: one(users, { fields: [planShares.sharedById], references: [users.id] })
 }));

@@ -1,0 +1,188 @@
+// Review in Chromium on a farm of the test's own (the seeded demo stays as it was; its lender is not
+// used, since a membership of the demo lender's would change the demo's rows): the owner shares a plan,
+// the lender finds it first on their home, comments and asks for changes; the owner sees the new state
+// and the e-mail, edits and shares again; the lender approves, then prints the report to PDF, whose text
+// is read back with pdftotext (poppler-utils). Screenshots of the reviewer's home, the review panel and
+// the report at phone and desktop width.
+import { execFile } from 'node:child_process';
+import { mkdtemp, rm } from 'node:fs/promises';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { promisify } from 'node:util';
+import { and, arrayContains, eq } from 'drizzle-orm';
+import type { BrowserContext, Page } from 'playwright-core';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { capturedMail, memberships, users } from '../../src/lib/server/db/schema';
+import {
+	openBrowser,
+	overflow,
+	screenshot,
+	smallTargets,
+	useSession,
+	viewports
+} from '../support/browser';
+import { testDb } from '../support/db';
+import { addMember, farmFromScenario } from '../support/farms';
+import { registerUser, type Client } from '../support/http';
+import { baseUrl } from '../support/server';
+
+const run = promisify(execFile);
+const db = testDb();
+let context: BrowserContext;
+let close: () => Promise<void>;
+let owner: Client;
+let lender: Client;
+let ownerEmail: string;
+let farmId: string;
+let planPath: string;
+
+const session = (client: Client) =>
+	useSession(
+		context,
+		client.cookieList().map((cookie) => ({ ...cookie, url: baseUrl }))
+	);
+const reviewState = (page: Page) =>
+	page.getByTestId('review-state').locator('[data-review-state]').getAttribute('data-review-state');
+
+/** Looks at a screen at phone and desktop width: nothing wider than the window, big touch targets. */
+async function lookAt(page: Page, name: string, { targets = true } = {}) {
+	for (const [size, viewport] of Object.entries(viewports)) {
+		await page.setViewportSize(viewport);
+		expect(await overflow(page)).toBe(0);
+		if (targets) expect(await smallTargets(page)).toEqual([]);
+		await screenshot(page, `${name}-${size}`);
+	}
+}
+
+beforeAll(async () => {
+	({ context, close } = await openBrowser());
+	({ owner, farmId } = await farmFromScenario(db, 'scenarios/reference.json', 'review-e2e'));
+	const plans = (await (await owner.fetch(`/api/v1/farms/${farmId}/plans`)).json()) as {
+		plans: { id: string }[];
+	};
+	const copy = await owner.json(`/api/v1/farms/${farmId}/plans/${plans.plans[0].id}/copy`, 'POST', {
+		name: 'Cover crops grazed'
+	});
+	const planId = ((await copy.json()) as { plan: { id: string } }).plan.id;
+	planPath = `/farms/${farmId}/plans/${planId}`;
+	const account = await registerUser('review-e2e-lender');
+	lender = account.client;
+	await addMember(db, farmId, account.email, 'reviewer');
+	const [row] = await db
+		.select({ email: users.email })
+		.from(memberships)
+		.innerJoin(users, eq(users.id, memberships.userId))
+		.where(and(eq(memberships.farmId, farmId), eq(memberships.role, 'owner')));
+	ownerEmail = row.email;
+});
+afterAll(() => close());
+
+describe('a plan reviewed by the lender', () => {
+	it('is shared, sent back with changes, edited, shared again, approved and printed', async () => {
+		const page = await context.newPage();
+
+		// The owner shares version 1.
+		await session(owner);
+		await page.goto(planPath);
+		await page.getByLabel('Message to the reviewers (optional)').fill('Covers grazed in the fall.');
+		await page.getByRole('button', { name: 'Share version 1 for review' }).click();
+		await page.getByText('Shared for review').waitFor();
+		expect(await reviewState(page)).toBe('awaiting_review');
+
+		// The lender finds it first on their home, and asks for changes.
+		await session(lender);
+		await page.goto('/farms');
+		const first = page.getByTestId('reviewer-plans').locator('tr[data-plan-row]').first();
+		expect(await first.getAttribute('data-state')).toBe('awaiting_review');
+		expect(await first.textContent()).toContain('Cover crops grazed');
+		await lookAt(page, 'reviewer-home');
+		await first.getByRole('link', { name: 'Cover crops grazed' }).click();
+		await page.waitForURL(/\/plans\/[0-9a-f-]{36}\?version=1/);
+		await page
+			.getByLabel('Your comment on version 1')
+			.fill('Show the hay bill if the covers fail.');
+		await page.getByLabel('Request changes').check();
+		await page.getByRole('button', { name: 'Send' }).click();
+		await page.getByText('Decision recorded').waitFor();
+		expect(await reviewState(page)).toBe('changes_requested');
+		await page.locator('#review').scrollIntoViewIfNeeded();
+		await lookAt(page, 'review-panel-reviewer');
+
+		// The owner sees the state and the e-mail, edits, saves and shares version 2.
+		await session(owner);
+		await page.goto(planPath);
+		expect(await reviewState(page)).toBe('changes_requested');
+		expect(await page.getByTestId('review-history').textContent()).toContain(
+			'Show the hay bill if the covers fail.'
+		);
+		const [mail] = await db
+			.select()
+			.from(capturedMail)
+			.where(arrayContains(capturedMail.envelopeTo, [ownerEmail]));
+		expect(mail.subject).toContain('Changes requested');
+		expect(mail.text).toContain(`${baseUrl}${planPath}?version=1`);
+		const rotation = page.getByLabel('Rotation of Big Bend');
+		const choices = await rotation
+			.locator('option')
+			.evaluateAll((options) => options.map((o) => (o as HTMLOptionElement).value).filter(Boolean));
+		await rotation.selectOption(choices.find((v) => v !== choices[0]) ?? choices[0]);
+		await page.getByLabel('Note on this version').fill('Hay bill shown for a failed cover');
+		await page.getByRole('button', { name: 'Save as a new version' }).click();
+		await page.getByText('Saved as version 2.').waitFor();
+		await page.getByRole('button', { name: 'Share version 2 for review' }).click();
+		await page.getByText('Shared for review').waitFor();
+		expect(await reviewState(page)).toBe('awaiting_review');
+		await lookAt(page, 'review-panel-owner');
+
+		// The lender approves version 2; version 1 keeps its changes requested.
+		await session(lender);
+		await page.goto(planPath);
+		await page.getByLabel('Your comment on version 2').fill('Thank you: approved.');
+		await page.getByLabel('Approve this version').check();
+		await page.getByRole('button', { name: 'Send' }).click();
+		await page.getByText('Decision recorded').waitFor();
+		expect(await reviewState(page)).toBe('approved');
+		expect(
+			await page
+				.locator('[data-review-version="1"] [data-review-state]')
+				.getAttribute('data-review-state')
+		).toBe('changes_requested');
+
+		// The report of version 2, on screen and printed.
+		await page.goto(`${planPath}/report?version=2`);
+		await page.getByTestId('plan-report').waitFor();
+		await lookAt(page, 'plan-report', { targets: false });
+		const folder = await mkdtemp(join(tmpdir(), 'furrowcast-report-'));
+		try {
+			const pdf = join(folder, 'report.pdf');
+			await page.emulateMedia({ media: 'print' });
+			await page.pdf({ path: pdf, format: 'Letter', printBackground: true });
+			const { stdout: text } = await run('pdftotext', ['-layout', pdf, '-']);
+			const { stdout: info } = await run('pdfinfo', [pdf]);
+			for (const expected of [
+				'Cover crops grazed, version 2',
+				'Maple Coulee Farm, Upper Midwest',
+				'Approved',
+				'Fields and years',
+				'Big Bend',
+				'Whole-farm results by year',
+				'Partial budget against the reference plan',
+				'Net return',
+				'The herd is fed hay for the whole 180-day feeding season.',
+				'ASABE EP496/D497',
+				'Thank you: approved.',
+				'Nitrogen rates must follow local regulations',
+				'Credit decisions rest with the lender'
+			]) {
+				expect(text.replace(/\s+/g, ' '), expected).toContain(expected);
+			}
+			// The site's header and the screen's buttons are not printed.
+			expect(text).not.toContain('Sign out');
+			expect(text).not.toContain('Print or save as PDF');
+			expect(Number(/Pages:\s+(\d+)/.exec(info)?.[1])).toBeGreaterThan(1);
+		} finally {
+			await rm(folder, { recursive: true, force: true });
+		}
+		await page.close();
+	});
+});

@@ -48,6 +48,7 @@ const screens: [string, () => string][] = [
 	['farm home', () => farmPath],
 	['farm data', () => `${farmPath}/data`],
 	['farm settings', () => `${farmPath}/settings`],
+	['members page', () => `${farmPath}/members`],
 	['glossary', () => '/glossary']
 ];
 

@@ -75,6 +75,7 @@ describe('an invitation by e-mail', () => {
 		await useSession(context, []);
 		await page.setViewportSize(viewports.phone);
 		await page.goto(link);
+		await screenshot(page, 'invitation-phone');
 		await page.getByRole('link', { name: 'Create an account' }).click();
 		await page.waitForURL('**/register?**');
 		await expect(page.getByLabel('E-mail').inputValue()).resolves.toBe(invitee);

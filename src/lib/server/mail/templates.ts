@@ -67,7 +67,9 @@ export function invitationMail(input: {
 	const after = ['If you did not expect this invitation, ignore this message.'];
 	return {
 		subject: `Invitation to ${input.farmName} on Furrowcast`,
-		text: [intro, what, '', 'Accept the invitation:', input.url, '', expiry, ...after].join('\n'),
+		text: [intro, '', what, '', 'Accept the invitation:', input.url, '', expiry, '', ...after].join(
+			'\n'
+		),
 		html: htmlBody([intro, what], { href: input.url, label: 'Accept the invitation' }, [
 			expiry,
 			...after

@@ -5,9 +5,6 @@
 // is read back with pdftotext (poppler-utils). Screenshots of the reviewer's home, the review panel and
 // the report at phone and desktop width.
 import { execFile } from 'node:child_process';
-import { mkdtemp, rm } from 'node:fs/promises';
-import { tmpdir } from 'node:os';
-import { join } from 'node:path';
 import { promisify } from 'node:util';
 import { and, arrayContains, eq } from 'drizzle-orm';
 import type { BrowserContext, Page } from 'playwright-core';
@@ -53,7 +50,11 @@ const reviewState = (page: Page) =>
  * Looks at a screen at phone and desktop width: nothing wider than the window, big touch targets. A
  * radio button inside a 44 px label row (the decision) is reached through its label, named in `besides`.
  */
-async function lookAt(page: Page, name: string, { targets = true, besides = [] as string[] } = {}) {
+async function lookAt(
+	page: Page,
+	name: string,
+	{ targets = true, besides = [] as string[], section = '' } = {}
+) {
 	for (const [size, viewport] of Object.entries(viewports)) {
 		await page.setViewportSize(viewport);
 		expect(await overflow(page)).toBe(0);
@@ -61,6 +62,10 @@ async function lookAt(page: Page, name: string, { targets = true, besides = [] a
 			expect((await smallTargets(page)).filter((t) => !besides.includes(t ?? ''))).toEqual([]);
 		}
 		await screenshot(page, `${name}-${size}`);
+		// The part looked at, on its own: a long page's full screenshot is too small to read.
+		if (section) {
+			await page.locator(section).screenshot({ path: `screenshots/${name}-${size}-part.png` });
+		}
 	}
 }
 
@@ -118,7 +123,7 @@ describe('a plan reviewed by the lender', () => {
 		await page.getByText('Decision recorded').waitFor();
 		expect(await reviewState(page)).toBe('changes_requested');
 		await page.locator('#review').scrollIntoViewIfNeeded();
-		await lookAt(page, 'review-panel-reviewer', { besides: ['decision'] });
+		await lookAt(page, 'review-panel-reviewer', { besides: ['decision'], section: '#review' });
 
 		// The owner sees the state and the e-mail, edits, saves and shares version 2.
 		await session(owner);
@@ -146,7 +151,7 @@ describe('a plan reviewed by the lender', () => {
 		await page.getByRole('button', { name: 'Share version 2 for review' }).click();
 		await page.getByRole('status').filter({ hasText: 'Shared for review' }).waitFor();
 		expect(await reviewState(page)).toBe('awaiting_review');
-		await lookAt(page, 'review-panel-owner');
+		await lookAt(page, 'review-panel-owner', { section: '#review' });
 
 		// The lender approves version 2; version 1 keeps its changes requested.
 		await session(lender);
@@ -166,9 +171,9 @@ describe('a plan reviewed by the lender', () => {
 		await page.goto(`${planPath}/report?version=2`);
 		await page.getByTestId('plan-report').waitFor();
 		await lookAt(page, 'plan-report', { targets: false });
-		const folder = await mkdtemp(join(tmpdir(), 'furrowcast-report-'));
-		try {
-			const pdf = join(folder, 'report.pdf');
+		{
+			// Kept beside the screenshots (ignored by git) for a person to look at.
+			const pdf = 'screenshots/plan-report.pdf';
 			await page.emulateMedia({ media: 'print' });
 			await page.pdf({ path: pdf, format: 'Letter', printBackground: true });
 			const { stdout: text } = await run('pdftotext', ['-layout', pdf, '-']);
@@ -194,8 +199,6 @@ describe('a plan reviewed by the lender', () => {
 			expect(text).not.toContain('Sign out');
 			expect(text).not.toContain('Print or save as PDF');
 			expect(Number(/Pages:\s+(\d+)/.exec(info)?.[1])).toBeGreaterThan(1);
-		} finally {
-			await rm(folder, { recursive: true, force: true });
 		}
 		await page.close();
 	});

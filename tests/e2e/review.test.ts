@@ -171,10 +171,13 @@ describe('a plan reviewed by the lender', () => {
 		await page.goto(`${planPath}/report?version=2`);
 		await page.getByTestId('plan-report').waitFor();
 		await lookAt(page, 'plan-report', { targets: false });
+		// The budget's lines are open, to print.
+		expect(
+			await page.getByTestId('partial-budget').locator('details').getAttribute('open')
+		).not.toBeNull();
 		{
 			// Kept beside the screenshots (ignored by git) for a person to look at.
 			const pdf = 'screenshots/plan-report.pdf';
-			await page.emulateMedia({ media: 'print' });
 			await page.pdf({ path: pdf, format: 'Letter', printBackground: true });
 			const { stdout: text } = await run('pdftotext', ['-layout', pdf, '-']);
 			const { stdout: info } = await run('pdfinfo', [pdf]);

@@ -122,6 +122,8 @@ describe('a plan reviewed by the lender', () => {
 		await page.getByRole('button', { name: 'Send' }).click();
 		await page.getByText('Decision recorded').waitFor();
 		expect(await reviewState(page)).toBe('changes_requested');
+		// Sent: the form is empty again, ready for the next comment.
+		expect(await page.getByLabel('Your comment on version 1').inputValue()).toBe('');
 		await page.locator('#review').scrollIntoViewIfNeeded();
 		await lookAt(page, 'review-panel-reviewer', { besides: ['decision'], section: '#review' });
 

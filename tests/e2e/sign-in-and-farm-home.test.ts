@@ -82,7 +82,8 @@ describe('refusals in the browser', () => {
 		await useSession(context, await sessionCookies(demoUsers.lender));
 		const page = await context.newPage();
 		await page.goto('/farms');
-		await page.getByText('Maple Coulee Farm').click();
+		// Above the farm list, the plans the lender reviews name the farm too.
+		await page.getByTestId('farm-list').getByText('Maple Coulee Farm').click();
 		await page.waitForURL(/\/farms\/[0-9a-f-]{36}$/);
 		await expect(page.getByText('Farm settings').count()).resolves.toBe(0);
 		const response = await page.goto(page.url() + '/settings');

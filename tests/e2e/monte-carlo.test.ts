@@ -43,7 +43,7 @@ describe('a Monte Carlo run on the risk page', () => {
 			form.getByRole('spinbutton', { name: 'Corn yield CV, %' }).inputValue()
 		).resolves.toBe('15');
 		// Enough draws that the run is still going when the page first asks how far it has got.
-		await form.getByRole('spinbutton', { name: 'Draws' }).fill('40000');
+		await form.getByRole('spinbutton', { name: 'Draws' }).fill('20000');
 		await form.getByRole('spinbutton', { name: /^Seed/ }).fill('2027');
 		await form.getByRole('button', { name: 'Start the run' }).click();
 
@@ -58,7 +58,7 @@ describe('a Monte Carlo run on the risk page', () => {
 		expect(beats).toMatch(/^\s*\d{1,3} %\s*$/);
 		// A row for each of the plan's five years and the average, each with its percentiles.
 		await expect(result.locator('tr[data-row^="spread-"]').count()).resolves.toBe(6);
-		await page.getByText('40,000 draws, seed 2027.').waitFor();
+		await page.getByText('20,000 draws, seed 2027.').waitFor();
 		await expect(page.getByTestId('credit-caution').count()).resolves.toBeGreaterThan(0);
 		await screenshot(page, 'risk-monte-carlo-1280');
 

@@ -41,12 +41,17 @@ async function readJob(client: Client, jobId: string): Promise<JobAnswer> {
 	return response.json();
 }
 
-async function until<T>(what: string, check: () => Promise<T | undefined>, seconds = 60) {
+async function until<T>(
+	what: string,
+	check: () => Promise<T | undefined>,
+	seconds = 60,
+	everyMs = 200
+) {
 	const end = Date.now() + seconds * 1000;
 	while (Date.now() < end) {
 		const found = await check();
 		if (found !== undefined) return found;
-		await new Promise((resolve) => setTimeout(resolve, 200));
+		await new Promise((resolve) => setTimeout(resolve, everyMs));
 	}
 	throw new Error(`timed out waiting for ${what}`);
 }
@@ -93,7 +98,7 @@ async function stopServer(port: number) {
 	const exited = once(server, 'exit');
 	server.kill('SIGTERM');
 	await exited;
-	servers.delete(port);
+	if (servers.get(port) === server) servers.delete(port);
 }
 
 const basePort = Number(process.env.TEST_PORT) + 20;
@@ -215,11 +220,26 @@ describe('several app servers sharing one queue', { timeout: 120_000 }, () => {
 		const client = owner.on(origin);
 		const options = { draws: 50_000, seed: 4242 };
 		const jobId = await startRun(client, options);
-		await until('the run to be part-way', async () => {
-			const job = await readJob(client, jobId);
-			return job.state === 'running' && job.progress.done > 0 ? job : undefined;
-		});
-		await stopServer(basePort);
+		// Watched in the database, not through the server, whose answers wait on the run's steps: a
+		// run takes a second or two, and the server is frozen as soon as a worker has taken the job.
+		await until(
+			'a worker to take the job',
+			async () => {
+				const { rows } = await pool.query(
+					`SELECT j.state FROM ${queueSchema}.job j JOIN job_progress p ON p.job_id = j.id
+					WHERE j.id = $1 AND j.state = 'active' AND p.done < p.total`,
+					[jobId]
+				);
+				return rows.length ? true : undefined;
+			},
+			60,
+			10
+		);
+		// Frozen at once, then told to stop and let go: the run stops at its next step.
+		servers.get(basePort)!.kill('SIGSTOP');
+		const stopped = stopServer(basePort);
+		servers.get(basePort)?.kill('SIGCONT');
+		await stopped;
 		// Stopped part-way: back in the queue to run again, with no result written.
 		const { rows } = await pool.query(
 			`SELECT state, output FROM ${queueSchema}.job WHERE id = $1`,

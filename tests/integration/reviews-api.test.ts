@@ -15,6 +15,12 @@ import {
 	reviews,
 	users
 } from '../../src/lib/server/db/schema';
+import { evaluatePlan } from '../../src/lib/engine';
+import { breakEven } from '../../src/lib/engine/risk/break-even';
+import { cashFlow } from '../../src/lib/engine/risk/cash-flow';
+import { formatNumber, formatUsd } from '../../src/lib/format';
+import { MONTH_NAMES } from '../../src/lib/months';
+import { parsePlanDocument, type PlanDocument } from '../../src/lib/schemas/plan-file';
 import { testDb } from '../support/db';
 import { addMember } from '../support/farms';
 import { newUser, registerUser, type Client } from '../support/http';
@@ -440,4 +446,142 @@ describe('pages built on the review', () => {
 		// A filter that is not an id filters nothing rather than failing.
 		expect((await owner.fetch(`/farms/${farmId}/audit?person=nobody`)).status).toBe(200);
 	});
+
+	// Last: it saves the farm's cash-flow settings, an audit entry the farm's record test does not expect.
+	it('the report of a version adds its break-even, cash flow and newest Monte Carlo run, as the engine works them out', async () => {
+		const { plan } = await body<{ plan: { version: number } }>(await owner.fetch(planUrl()), 200);
+		const current = plan.version;
+		expect(current).toBeGreaterThan(1);
+		const versionOne = await planFile(1);
+		const settings = { startingCashUsd: 20_000, minimumBalanceUsd: 5_000 };
+		const soldLate = versionOne.crops[0].id;
+		const saved = await owner.postForm(`/farms/${farmId}/plans/${planId}/cash-flow`, {
+			startingCashUsd: String(settings.startingCashUsd),
+			minimumBalanceUsd: String(settings.minimumBalanceUsd),
+			[`saleMonth:${soldLate}`]: '12'
+		});
+		expect(saved.status).toBe(303);
+
+		const report = (version: number) =>
+			reviewer.fetch(`/farms/${farmId}/plans/${planId}/report?version=${version}`);
+		const html = await (await report(1)).text();
+
+		// Break-even of one crop-year, from the engine on version 1's plan file (the risk page's own
+		// computation: costs ÷ production, Iowa State Ag Decision Maker's textbook break-even).
+		const result = evaluatePlan(versionOne);
+		const found = breakEven(result);
+		const year = found.years[0];
+		const crop = year.crops.find((c) => c.breakEvenPriceUsdPerUnit !== null)!;
+		expect(
+			cellText(html, `crop-${year.year}-${crop.crop}`, 'break-even-price'),
+			`${crop.cropName} ${year.year}`
+		).toBe(`${formatUsd(crop.breakEvenPriceUsdPerUnit, 2)}/${crop.yieldUnit}`);
+		expect(cellText(html, `farm-${year.year}`, 'price-fall')).toBe(
+			formatNumber(year.farm.priceFallPercent, 1)
+		);
+		// The sensitivity table is there, one row per input (crop prices and yields, N, diesel, hay, labour).
+		expect(html).toContain('data-testid="report-sensitivity"');
+		expect(html).toMatch(/data-row="sensitivity-nitrogen-price"/);
+
+		// The cash flow under the farm's settings as saved, at the farm's interest rate.
+		const flow = cashFlow(result, {
+			...settings,
+			interestRatePercent: versionOne.farm.interestRatePercent,
+			saleMonthByCrop: new Map([[soldLate, 12]]),
+			feedingSeasonStartMonth: versionOne.herd?.feedingSeasonStartMonth ?? null
+		});
+		expect(flow.peakLoan).not.toBeNull();
+		expect(testIdText(html, 'report-peak-loan')).toBe(formatUsd(flow.peakLoanUsd));
+		expect(testIdText(html, 'report-peak-loan-month')).toContain(
+			`at the end of ${MONTH_NAMES[flow.peakLoan!.month - 1]} ${flow.peakLoan!.year}`
+		);
+		for (const y of flow.years) {
+			expect(cellText(html, `year-${y.year}`, 'peak-loan')).toBe(formatUsd(y.peakLoanUsd));
+			expect(cellText(html, `year-${y.year}`, 'loan-interest')).toBe(formatUsd(y.loanInterestUsd));
+		}
+		expect(testIdText(html, 'report-cash-settings')).toContain(
+			`Cash on hand at the start of ${flow.years[0].year}: $20,000`
+		);
+
+		// No Monte Carlo run yet: the report says so and where to run one.
+		const before = await (await report(current)).text();
+		expect(testIdText(before, 'monte-carlo-none')).toContain(
+			`No Monte Carlo run of version ${current} has finished in the past week`
+		);
+		expect(before).toContain(`href="/farms/${farmId}/plans/${planId}/risk#monte-carlo"`);
+
+		// A small run through the API, waited for on the job route: the report shows its percentiles.
+		const started = await body<{ jobId: string }>(
+			await owner.json(planUrl('/risk'), 'POST', { draws: 500, seed: 12 }),
+			202
+		);
+		let job:
+			| {
+					state: string;
+					result: {
+						plan: { horizonAverage: { percentilesUsd: { p5: number; p50: number } } };
+					} | null;
+			  }
+			| undefined;
+		await expect
+			.poll(
+				async () => {
+					job = await (await owner.fetch(`/api/v1/jobs/${started.jobId}`)).json();
+					return job!.state;
+				},
+				{ timeout: 30_000, interval: 200 }
+			)
+			.toBe('completed');
+		const after = await (await report(current)).text();
+		expect(after).toContain('data-testid="monte-carlo-result"');
+		const p = job!.result!.plan.horizonAverage.percentilesUsd;
+		const average = rowText(after, 'spread-Average a year');
+		expect(average).toContain(formatUsd(p.p5));
+		expect(average).toContain(formatUsd(p.p50));
+		// Version 1's report keeps saying it has no run of its own, and names the run there is.
+		const old = testIdText(await (await report(1)).text(), 'monte-carlo-none');
+		expect(old).toContain('No Monte Carlo run of version 1');
+		expect(old).toContain(`The plan's newest run is of version ${current}.`);
+	});
 });
+
+/** The plan file the farm makes of a version of the plan: what the report evaluates. */
+async function planFile(version: number): Promise<PlanDocument> {
+	const parsed = parsePlanDocument(
+		await body<unknown>(await owner.fetch(planUrl(`/file?version=${version}`)), 200)
+	);
+	if (!parsed.ok) throw new Error(JSON.stringify(parsed.issues));
+	return parsed.plan;
+}
+
+/** The text of an element's content, tags dropped and white space run together. */
+const textOf = (html: string) =>
+	html
+		.replace(/<[^>]*>/g, ' ')
+		.replace(/&amp;/g, '&')
+		.replace(/\s+/g, ' ')
+		.trim();
+
+/** The text of the table row marked `data-row="<row>"`. */
+function rowText(html: string, row: string) {
+	const start = html.indexOf(`data-row="${row}"`);
+	expect(start, `row ${row}`).toBeGreaterThan(-1);
+	return html.slice(start, html.indexOf('</tr>', start));
+}
+
+/** The text of the cell marked `data-cell="<cell>"` in that row. */
+function cellText(html: string, row: string, cell: string) {
+	const inRow = rowText(html, row);
+	const start = inRow.indexOf(`data-cell="${cell}"`);
+	expect(start, `cell ${cell} of ${row}`).toBeGreaterThan(-1);
+	return textOf(inRow.slice(inRow.indexOf('>', start) + 1, inRow.indexOf('</td>', start)));
+}
+
+/** The text of the element marked `data-testid="<id>"` (up to its closing tag). */
+function testIdText(html: string, id: string) {
+	const start = html.indexOf(`data-testid="${id}"`);
+	expect(start, `element ${id}`).toBeGreaterThan(-1);
+	const tag = html.lastIndexOf('<', start);
+	const name = /^<(\w+)/.exec(html.slice(tag))![1];
+	return textOf(html.slice(html.indexOf('>', start) + 1, html.indexOf(`</${name}>`, start)));
+}

@@ -2,14 +2,17 @@
 // break-even, sensitivity or cash flow, or the 422 saying why not.
 import { json } from '@sveltejs/kit';
 import { evaluatePlan, NonFiniteResultError, type PlanResult } from '$lib/engine';
-import { breakEven } from '$lib/engine/risk/break-even';
+import type { ShownBreakEven } from '$lib/components/risk/break-even-rows';
+import { breakEven, type BreakEven, type CropBreakEven } from '$lib/engine/risk/break-even';
 import { cashFlow } from '$lib/engine/risk/cash-flow';
 import { sensitivity } from '$lib/engine/risk/sensitivity';
+import type { CropDefinition } from '$lib/schemas/crops';
 import type { PlanDocument } from '$lib/schemas/plan-file';
 import type { CashFlowSettings } from '$lib/schemas/risk';
 import type { Db, Tx } from '$lib/server/db/client';
 import type { PlanRow } from '$lib/server/db/plans';
 import type { farms } from '$lib/server/db/schema';
+import { displayUnits } from '$lib/server/display-units';
 import { storedPlanDocument } from '$lib/server/plans';
 
 type Farm = typeof farms.$inferSelect;
@@ -51,6 +54,45 @@ export async function withPlan<T>(
 
 export function planBreakEven(document: PlanDocument) {
 	return breakEven(evaluatePlan(document));
+}
+
+/** Break-even figures in the farm's units, as the risk page and the report show them. */
+export function shownBreakEven(found: BreakEven, document: PlanDocument): ShownBreakEven {
+	const units = displayUnits(document.farm.unitSystem);
+	const cropById = new Map(document.crops.map((c) => [c.id, c]));
+	const shown = (row: CropBreakEven) => shownCrop(row, cropById.get(row.crop)!, units);
+	return {
+		years: found.years.map((y) => ({ year: y.year, crops: y.crops.map(shown), farm: y.farm })),
+		horizon: { crops: found.horizon.crops.map(shown), farm: found.horizon.farm }
+	};
+}
+
+/** A crop's break-even figures in the farm's units (per acre and per bushel, or per hectare and tonne). */
+function shownCrop(
+	row: CropBreakEven,
+	crop: CropDefinition,
+	units: ReturnType<typeof displayUnits>
+) {
+	const yieldOf = (value: number | null) =>
+		value === null ? null : units.yieldPerArea(value, crop).value;
+	const priceOf = (value: number | null) =>
+		value === null ? null : units.cropPrice(value, crop).value;
+	return {
+		crop: row.crop,
+		cropName: row.cropName,
+		yieldUnit: units.yieldPerArea(1, crop).unit,
+		priceUnit: units.cropPrice(1, crop).unit,
+		area: units.amount(row.acres, 'area')!,
+		yieldPerArea: yieldOf(row.yieldPerAcre)!,
+		price: priceOf(row.priceUsdPerUnit)!,
+		netReturnUsd: row.netReturnUsd,
+		breakEvenPrice: priceOf(row.breakEvenPriceUsdPerUnit),
+		breakEvenPriceReason: row.breakEvenPriceReason,
+		breakEvenYield: yieldOf(row.breakEvenYieldPerAcre),
+		breakEvenYieldReason: row.breakEvenYieldReason,
+		farmBreakEvenPrice: priceOf(row.farmBreakEvenPriceUsdPerUnit),
+		farmBreakEvenPriceReason: row.farmBreakEvenPriceReason
+	};
 }
 
 export function planSensitivity(document: PlanDocument, stepsPercent: number[]) {

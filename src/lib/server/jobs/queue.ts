@@ -3,8 +3,10 @@
 // started it, and any server answers how far it has got.
 import { hostname } from 'node:os';
 import PgBoss from 'pg-boss';
+import { sql } from 'drizzle-orm';
 import { z } from 'zod';
 import { env } from '$env/dynamic/private';
+import { db } from '$lib/server/db';
 
 /** The kinds of job, each a queue of its own. */
 export const jobKinds = ['monte-carlo'] as const;
@@ -31,13 +33,15 @@ const queueOptions = {
 
 let started: Promise<PgBoss> | undefined;
 
+const queueSchema = () => env.JOB_QUEUE_SCHEMA || 'pgboss';
+
 /** The queue, started once per process (schema created or migrated by pg-boss on first start). */
 export function jobQueue(): Promise<PgBoss> {
 	started ??= (async () => {
 		if (!env.DATABASE_URL) throw new Error('DATABASE_URL is not set: the job queue needs it');
 		const boss = new PgBoss({
 			connectionString: env.DATABASE_URL,
-			schema: env.JOB_QUEUE_SCHEMA || 'pgboss',
+			schema: queueSchema(),
 			application_name: 'furrowcast-jobs',
 			max: 4,
 			// Finished jobs stay readable for a week (pg-boss archives them after 12 hours).
@@ -118,4 +122,39 @@ export async function findJob(jobId: string): Promise<StoredJob | undefined> {
 		};
 	}
 	return undefined;
+}
+
+export interface FinishedJob {
+	id: string;
+	completedOn: Date;
+	output: unknown;
+}
+
+/**
+ * The newest completed job of a kind run on a plan, preferring one whose output names `version` as its
+ * plan version: that version's newest run when there is one, else the plan's newest run of any version
+ * (the caller tells them apart by the output). Jobs the queue has archived count; those it has deleted
+ * (a week after they end) do not. The plan is looked up in the job's data: a scan of the kind's jobs,
+ * few while the queue keeps a week of them.
+ */
+export async function findNewestCompletedJob(
+	kind: JobKind,
+	planId: string,
+	version: number
+): Promise<FinishedJob | undefined> {
+	await jobQueue(); // the queue's tables exist once it has started
+	const schema = sql.identifier(queueSchema());
+	const { rows } = await db.execute<{ id: string; completed_on: Date; output: unknown }>(sql`
+		SELECT id, completed_on, output FROM (
+			SELECT id, completed_on, output, data FROM ${schema}.job
+			WHERE name = ${kind} AND state = 'completed'
+			UNION ALL
+			SELECT id, completed_on, output, data FROM ${schema}.archive
+			WHERE name = ${kind} AND state = 'completed'
+		) finished
+		WHERE data ->> 'planId' = ${planId}
+		ORDER BY (output ->> 'planVersion') = ${String(version)} DESC, completed_on DESC
+		LIMIT 1`);
+	const row = rows[0];
+	return row && { id: row.id, completedOn: new Date(row.completed_on), output: row.output };
 }

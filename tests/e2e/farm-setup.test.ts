@@ -163,7 +163,7 @@ describe('a reviewer (the demo lender)', () => {
 		const page = await context.newPage();
 		await signInAs(page, demoUsers.lender);
 		await page.waitForURL('**/farms');
-		await page.getByText('Maple Coulee Farm').click();
+		await page.getByTestId('farm-list').getByText('Maple Coulee Farm').click();
 		await page.waitForURL(/\/farms\/[0-9a-f-]{36}$/);
 		await page.getByRole('link', { name: 'Fields page' }).click();
 		await page.waitForURL(/\/fields$/);
@@ -252,7 +252,7 @@ describe.each(Object.entries(viewports))('at %s width', (size, viewport) => {
 		await page.setViewportSize(viewport);
 		await signInAs(page, demoUsers.lender);
 		await page.waitForURL('**/farms');
-		await page.getByText('Maple Coulee Farm').click();
+		await page.getByTestId('farm-list').getByText('Maple Coulee Farm').click();
 		await page.waitForURL(/\/farms\/[0-9a-f-]{36}$/);
 		await page.goto(`${new URL(page.url()).pathname}/fields`);
 		await screenshot(page, `fields-reviewer-${size}`);

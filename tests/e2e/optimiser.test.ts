@@ -131,7 +131,7 @@ describe('an owner', () => {
 		await page.close();
 	});
 
-	it('draws an N trade-off curve as it streams, and shows the mix of a point picked', async () => {
+	it('draws an N trade-off curve as a queued job, kept over a reload, and shows a point’s mix', async () => {
 		const page = await context.newPage();
 		await useSession(context, cookiesOf(owner));
 		await page.goto(optimisePath);
@@ -141,6 +141,11 @@ describe('an owner', () => {
 		await page.getByLabel('Points', { exact: true }).fill('20');
 		await page.getByRole('button', { name: 'Draw the trade-off' }).click();
 		await page.getByText('20 points drawn.').waitFor({ timeout: 60_000 });
+		// The job's id stays in the address: a reload reads the finished curve back, form and all.
+		expect(new URL(page.url()).searchParams.get('curve')).toMatch(/^[0-9a-f-]{36}$/);
+		await page.reload();
+		await page.getByText('20 points drawn.').waitFor({ timeout: 60_000 });
+		expect(await page.getByLabel('To (lb N a year)').inputValue()).toBe('45000');
 		await page.getByTestId('trade-off').locator('svg').first().waitFor();
 		await page.locator('summary', { hasText: 'The points, to pick one' }).click();
 		const rows = page.locator('tr[data-point]');

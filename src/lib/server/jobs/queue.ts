@@ -9,7 +9,7 @@ import { env } from '$env/dynamic/private';
 import { db } from '$lib/server/db';
 
 /** The kinds of job, each a queue of its own. */
-export const jobKinds = ['monte-carlo'] as const;
+export const jobKinds = ['monte-carlo', 'trade-off'] as const;
 export type JobKind = (typeof jobKinds)[number];
 
 /** What every job carries besides its own input: whose it is, for the job route's guard. */

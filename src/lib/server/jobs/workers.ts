@@ -5,6 +5,7 @@ import type PgBoss from 'pg-boss';
 import { db } from '$lib/server/db';
 import { deleteStaleJobProgress } from '$lib/server/db/jobs';
 import { runMonteCarloJob, type MonteCarloJobData } from './monte-carlo';
+import { runTradeOffJob, type TradeOffJobData } from './trade-off';
 import { jobQueue, registerLocalWorker, stopJobQueue } from './queue';
 
 let stopping = false;
@@ -17,6 +18,12 @@ async function startWorkers(boss: PgBoss) {
 		async ([job]) => runMonteCarloJob(job.id, job.data, () => stopping)
 	);
 	registerLocalWorker('monte-carlo', workerId);
+	const tradeOffWorkerId = await boss.work<TradeOffJobData>(
+		'trade-off',
+		{ pollingIntervalSeconds: 1, batchSize: 1 },
+		async ([job]) => runTradeOffJob(job.id, job.data, () => stopping)
+	);
+	registerLocalWorker('trade-off', tradeOffWorkerId);
 	// pg-boss deletes jobs a week after they end; their progress rows go a week later.
 	await deleteStaleJobProgress(db, 14);
 }

@@ -1,22 +1,7 @@
-// The page's talk with the optimiser API: JSON answers and the trade-off's stream of lines.
+// The page's talk with the optimiser API: the connection message and downloads.
 
 export const connectionMessage =
 	'The server could not be reached: check the connection and try again.';
-
-/** Calls `online` with each JSON line of an `application/x-ndjson` body as it arrives. */
-export async function readLines<T>(response: Response, online: (line: T) => void) {
-	const reader = response.body!.pipeThrough(new TextDecoderStream()).getReader();
-	let rest = '';
-	for (;;) {
-		const { done, value } = await reader.read();
-		if (done) break;
-		rest += value;
-		const lines = rest.split('\n');
-		rest = lines.pop()!;
-		for (const line of lines) if (line.trim()) online(JSON.parse(line) as T);
-	}
-	if (rest.trim()) online(JSON.parse(rest) as T);
-}
 
 /** Starts a download of a body the browser fetched (the LP file is a POST, so no plain link). */
 export async function download(response: Response, fallbackName: string) {

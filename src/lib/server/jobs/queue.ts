@@ -49,13 +49,27 @@ export function jobQueue(): Promise<PgBoss> {
 		});
 		boss.on('error', (error) => console.error('job queue:', error));
 		await boss.start();
-		for (const kind of jobKinds) {
-			if (!(await boss.getQueue(kind)))
-				await boss.createQueue(kind, { name: kind, ...queueOptions });
-		}
+		for (const kind of jobKinds) await ensureQueue(boss, kind);
 		return boss;
 	})();
 	return started;
+}
+
+/**
+ * Creates a queue unless it exists. Servers starting together race to create it, and PostgreSQL can end
+ * the race with a deadlock error for one of them: that one looks again rather than fail its start.
+ */
+async function ensureQueue(boss: PgBoss, kind: JobKind) {
+	for (let attempt = 1; ; attempt++) {
+		if (await boss.getQueue(kind)) return;
+		try {
+			await boss.createQueue(kind, { name: kind, ...queueOptions });
+			return;
+		} catch (error) {
+			if (attempt >= 5) throw error;
+			await new Promise((resolve) => setTimeout(resolve, 100 * attempt));
+		}
+	}
 }
 
 /** Stops the queue: workers stop taking jobs, a job still running is failed so that it is retried. */

@@ -188,22 +188,51 @@ describe('starting a run and reading it back', () => {
 describe('several app servers sharing one queue', { timeout: 120_000 }, () => {
 	it('two workers take jobs from one queue and never run the same job twice', async () => {
 		const [first, second] = await Promise.all([startServer(basePort), startServer(basePort + 1)]);
-		const viaFirst = owner.on(first);
-		const jobIds: string[] = [];
-		for (let i = 0; i < 6; i++) jobIds.push(await startRun(viaFirst, { draws: 20_000, seed: i }));
-		// Either server answers for any job: they share the queue.
+		const firstServer = servers.get(basePort)!;
+		const secondServer = servers.get(basePort + 1)!;
+		// The first server takes a long run and is frozen while it runs: it can take no other job, so
+		// the runs sent meanwhile are the second server's. Without the freeze, which server takes which
+		// job depends on timing alone, and one fast server may take them all.
+		const longRun = await startRun(owner.on(first), { draws: 50_000, seed: 0 });
+		await until(
+			'the first server to take the long run',
+			async () => {
+				const { rows } = await pool.query(
+					`SELECT 1 FROM job_progress WHERE job_id = $1 AND worker LIKE $2`,
+					[longRun, `%:${firstServer.pid}`]
+				);
+				return rows.length ? true : undefined;
+			},
+			60,
+			10
+		);
+		firstServer.kill('SIGSTOP');
 		const viaSecond = owner.on(second);
-		for (const jobId of jobIds) await finished(viaSecond, jobId);
+		const shortRuns: string[] = [];
+		try {
+			for (let i = 1; i <= 4; i++)
+				shortRuns.push(await startRun(viaSecond, { draws: 20_000, seed: i }));
+			for (const jobId of shortRuns) await finished(viaSecond, jobId);
+		} finally {
+			firstServer.kill('SIGCONT');
+		}
+		// Either server answers for any job: they share the queue.
+		await finished(viaSecond, longRun, 90);
+		const jobIds = [longRun, ...shortRuns];
 		const { rows } = await pool.query(
 			`SELECT p.job_id AS "jobId", p.starts, p.worker, j.retry_count AS "retryCount"
 			FROM job_progress p JOIN ${queueSchema}.job j ON j.id = p.job_id
 			WHERE p.job_id = ANY($1::uuid[])`,
 			[jobIds]
 		);
-		expect(rows).toHaveLength(6);
+		expect(rows).toHaveLength(5);
+		// Each job ran once, on the server that took it.
 		for (const row of rows) expect([row.starts, row.retryCount]).toEqual([1, 0]);
-		// Both servers worked: the queue shares jobs out rather than one server running them all.
-		expect(new Set(rows.map((r) => r.worker)).size).toBe(2);
+		const workerOf = new Map(rows.map((r) => [r.jobId as string, r.worker as string]));
+		expect(workerOf.get(longRun)).toMatch(new RegExp(`:${firstServer.pid}$`));
+		for (const jobId of shortRuns) {
+			expect(workerOf.get(jobId)).toMatch(new RegExp(`:${secondServer.pid}$`));
+		}
 		// The tests' own server (the default queue schema) saw none of them.
 		const mainQueue = await pool.query(
 			'SELECT count(*)::int AS n FROM pgboss.job WHERE id = ANY($1::uuid[])',

@@ -1,5 +1,5 @@
 // Review of plan versions: shares, comments and decisions, and the state each version is in.
-import { and, asc, eq, inArray } from 'drizzle-orm';
+import { and, asc, eq, inArray, type SQL } from 'drizzle-orm';
 import type { FarmRole } from '$lib/roles';
 import {
 	versionReviewState,
@@ -16,6 +16,41 @@ import { comments, memberships, planShares, planVersions, reviews, users } from 
 const personName = (name: string | null, email: string | null) =>
 	name ?? email ?? 'a removed account';
 
+/** The shares of the versions of the plans `plans` picks, with who shared each. */
+const shareRows = (db: Db | Tx, plans: SQL) =>
+	db
+		.select({
+			id: planShares.id,
+			planId: planVersions.planId,
+			version: planVersions.version,
+			name: users.name,
+			email: users.email,
+			text: planShares.message,
+			at: planShares.createdAt
+		})
+		.from(planShares)
+		.innerJoin(planVersions, eq(planVersions.id, planShares.planVersionId))
+		.leftJoin(users, eq(users.id, planShares.sharedById))
+		.where(plans);
+
+/** The decisions on the versions of the plans `plans` picks, with who decided each. */
+const decisionRows = (db: Db | Tx, plans: SQL) =>
+	db
+		.select({
+			id: reviews.id,
+			planId: planVersions.planId,
+			version: planVersions.version,
+			name: users.name,
+			email: users.email,
+			text: reviews.note,
+			decision: reviews.decision,
+			at: reviews.createdAt
+		})
+		.from(reviews)
+		.innerJoin(planVersions, eq(planVersions.id, reviews.planVersionId))
+		.leftJoin(users, eq(users.id, reviews.reviewerId))
+		.where(plans);
+
 /** One entry of a plan's review history: a share, a comment, or a decision with its comment. */
 export interface ReviewEntry {
 	id: string;
@@ -29,20 +64,9 @@ export interface ReviewEntry {
 
 /** Every share, comment and decision on every version of a plan, oldest first. */
 export async function listReviewEntries(db: Db | Tx, planId: string): Promise<ReviewEntry[]> {
-	const [shareRows, commentRows, reviewRows] = await Promise.all([
-		db
-			.select({
-				id: planShares.id,
-				version: planVersions.version,
-				name: users.name,
-				email: users.email,
-				text: planShares.message,
-				at: planShares.createdAt
-			})
-			.from(planShares)
-			.innerJoin(planVersions, eq(planVersions.id, planShares.planVersionId))
-			.leftJoin(users, eq(users.id, planShares.sharedById))
-			.where(eq(planVersions.planId, planId)),
+	const ofPlan = eq(planVersions.planId, planId);
+	const [shares, commentRows, decisions] = await Promise.all([
+		shareRows(db, ofPlan),
 		db
 			.select({
 				id: comments.id,
@@ -55,21 +79,8 @@ export async function listReviewEntries(db: Db | Tx, planId: string): Promise<Re
 			.from(comments)
 			.innerJoin(planVersions, eq(planVersions.id, comments.planVersionId))
 			.leftJoin(users, eq(users.id, comments.authorId))
-			.where(eq(planVersions.planId, planId)),
-		db
-			.select({
-				id: reviews.id,
-				version: planVersions.version,
-				name: users.name,
-				email: users.email,
-				text: reviews.note,
-				decision: reviews.decision,
-				at: reviews.createdAt
-			})
-			.from(reviews)
-			.innerJoin(planVersions, eq(planVersions.id, reviews.planVersionId))
-			.leftJoin(users, eq(users.id, reviews.reviewerId))
-			.where(eq(planVersions.planId, planId))
+			.where(ofPlan),
+		decisionRows(db, ofPlan)
 	]);
 	const entry =
 		(kind: (row: { decision?: ReviewDecision }) => ReviewEntry['kind']) =>
@@ -90,9 +101,9 @@ export async function listReviewEntries(db: Db | Tx, planId: string): Promise<Re
 			at: row.at
 		});
 	return [
-		...shareRows.map(entry(() => 'share')),
+		...shares.map(entry(() => 'share')),
 		...commentRows.map(entry(() => 'comment')),
-		...reviewRows.map(entry((row) => row.decision!))
+		...decisions.map(entry((row) => row.decision!))
 	].sort((a, b) => a.at.getTime() - b.at.getTime() || a.id.localeCompare(b.id));
 }
 
@@ -117,32 +128,10 @@ export const notShared: VersionReviewState = { state: 'not_shared', by: null, at
 export async function reviewStatesOfPlans(db: Db | Tx, planIds: string[]) {
 	const byPlan = new Map<string, Map<number, VersionReviewState>>();
 	if (!planIds.length) return byPlan;
-	const [shareRows, reviewRows] = await Promise.all([
-		db
-			.select({
-				planId: planVersions.planId,
-				version: planVersions.version,
-				name: users.name,
-				email: users.email,
-				at: planShares.createdAt
-			})
-			.from(planShares)
-			.innerJoin(planVersions, eq(planVersions.id, planShares.planVersionId))
-			.leftJoin(users, eq(users.id, planShares.sharedById))
-			.where(inArray(planVersions.planId, planIds)),
-		db
-			.select({
-				planId: planVersions.planId,
-				version: planVersions.version,
-				name: users.name,
-				email: users.email,
-				decision: reviews.decision,
-				at: reviews.createdAt
-			})
-			.from(reviews)
-			.innerJoin(planVersions, eq(planVersions.id, reviews.planVersionId))
-			.leftJoin(users, eq(users.id, reviews.reviewerId))
-			.where(inArray(planVersions.planId, planIds))
+	const ofPlans = inArray(planVersions.planId, planIds);
+	const [shares, decisions] = await Promise.all([
+		shareRows(db, ofPlans),
+		decisionRows(db, ofPlans)
 	]);
 	const events = new Map<string, Map<number, ReviewEvent[]>>();
 	const add = (planId: string, version: number, event: ReviewEvent) => {
@@ -150,14 +139,14 @@ export async function reviewStatesOfPlans(db: Db | Tx, planIds: string[]) {
 		events.set(planId, versions);
 		versions.set(version, [...(versions.get(version) ?? []), event]);
 	};
-	for (const row of shareRows) {
+	for (const row of shares) {
 		add(row.planId, row.version, {
 			kind: 'share',
 			by: personName(row.name, row.email),
 			at: row.at
 		});
 	}
-	for (const row of reviewRows) {
+	for (const row of decisions) {
 		add(row.planId, row.version, {
 			kind: row.decision,
 			by: personName(row.name, row.email),

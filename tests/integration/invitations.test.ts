@@ -58,7 +58,17 @@ async function rowsOfBothFarms() {
 			.where(inArray(memberships.farmId, farmIds))
 			.orderBy(memberships.farmId, memberships.userId),
 		db.select().from(auditLog).where(inArray(auditLog.farmId, farmIds)).orderBy(auditLog.id),
-		db.$count(users)
+		// Accounts of the invited addresses only: other files make accounts of their own meanwhile.
+		db.$count(
+			users,
+			inArray(
+				users.email,
+				db
+					.select({ email: invitations.email })
+					.from(invitations)
+					.where(inArray(invitations.farmId, farmIds))
+			)
+		)
 	]);
 	return { invitationRows, membershipRows, auditRows, userCount };
 }

@@ -2,15 +2,17 @@ import { sveltekit } from '@sveltejs/kit/vite';
 import tailwindcss from '@tailwindcss/vite';
 import { configDefaults, defineConfig } from 'vitest/config';
 
-// Projects run in groups (sequence.groupOrder): unit, then integration and e2e one file at a time
-// against the one server and database, then the check that they left the seeded demo as it was.
-// No project keeps state in modules (files build their own data), so files share one module graph
+// Unit, integration and e2e files run two at a time (one per core of the 2-core machine the suite is
+// sized for), integration and e2e against the one server and database: every file builds the data it
+// changes and counts only its own rows. Then, alone (sequence.groupOrder), the check that they left the
+// seeded demo as it was. No project keeps state in modules, so a worker's files share one module graph
 // (isolate: false) instead of loading the engine, mathjs and the db client again for each.
 export default defineConfig({
 	plugins: [tailwindcss(), sveltekit()],
 	test: {
 		expect: { requireAssertions: true },
 		allowOnly: false,
+		maxWorkers: 2,
 		projects: [
 			{
 				extends: './vite.config.ts',
@@ -33,9 +35,8 @@ export default defineConfig({
 					include: ['tests/integration/**/*.test.ts'],
 					exclude: [...configDefaults.exclude, 'tests/integration/after-all/**'],
 					globalSetup: ['tests/support/global-setup.ts'],
-					fileParallelism: false,
 					isolate: false,
-					sequence: { groupOrder: 1 },
+					sequence: { groupOrder: 0 },
 					testTimeout: 30_000,
 					hookTimeout: 60_000
 				}
@@ -47,9 +48,8 @@ export default defineConfig({
 					environment: 'node',
 					include: ['tests/e2e/**/*.test.ts'],
 					globalSetup: ['tests/support/global-setup.ts'],
-					fileParallelism: false,
 					isolate: false,
-					sequence: { groupOrder: 1 },
+					sequence: { groupOrder: 0 },
 					testTimeout: 60_000,
 					hookTimeout: 60_000
 				}
@@ -61,7 +61,7 @@ export default defineConfig({
 					environment: 'node',
 					include: ['tests/integration/after-all/**/*.test.ts'],
 					globalSetup: ['tests/support/demo-snapshot-setup.ts'],
-					sequence: { groupOrder: 2 }
+					sequence: { groupOrder: 1 }
 				}
 			}
 		]

@@ -202,7 +202,7 @@ recreate_database() {
 }
 
 ensure_chromium() {
-	[ -x /usr/bin/chromium ] || apt_install chromium
+	[ -x /usr/bin/chromium-headless-shell ] || apt_install chromium-headless-shell
 }
 
 # GLPK's glpsol: the independent solver the optimiser's tests and bench check HiGHS against.

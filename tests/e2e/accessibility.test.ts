@@ -2,11 +2,11 @@
 import AxeBuilder from '@axe-core/playwright';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { BrowserContext, Page } from 'playwright-core';
-import { openBrowser, sessionCookies, useSession } from '../support/browser';
+import { sharedBrowser, sessionCookies, useSession } from '../support/browser';
 import { demoUsers } from '../support/server';
 
 let context: BrowserContext;
-let close: () => Promise<void>;
+let release: () => Promise<void>;
 let owner: Awaited<ReturnType<typeof sessionCookies>>;
 let lender: Awaited<ReturnType<typeof sessionCookies>>;
 let farmPath: string;
@@ -14,8 +14,8 @@ let referencePlanId: string;
 let alternativePlanId: string;
 
 beforeAll(async () => {
-	[{ context, close }, owner, lender] = await Promise.all([
-		openBrowser(),
+	[{ context, release }, owner, lender] = await Promise.all([
+		sharedBrowser(),
 		sessionCookies(demoUsers.owner),
 		sessionCookies(demoUsers.lender)
 	]);
@@ -27,7 +27,7 @@ beforeAll(async () => {
 	referencePlanId = plans.find((p: { isReference: boolean }) => p.isReference).id;
 	alternativePlanId = plans.find((p: { isReference: boolean }) => !p.isReference).id;
 });
-afterAll(() => close());
+afterAll(() => release());
 
 async function violations(page: Page) {
 	const results = await new AxeBuilder({ page })

@@ -3,7 +3,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { BrowserContext, Page } from 'playwright-core';
 import {
-	openBrowser,
+	sharedBrowser,
 	overflow,
 	screenshot,
 	signInAs,
@@ -13,11 +13,11 @@ import {
 import { demoUsers } from '../support/server';
 
 let context: BrowserContext;
-let close: () => Promise<void>;
+let release: () => Promise<void>;
 let farmPath: string;
 
 beforeAll(async () => {
-	({ context, close } = await openBrowser());
+	({ context, release } = await sharedBrowser());
 	// A new account and farm of the test's own, made through the forms; the demo farm is only read.
 	const page = await context.newPage();
 	await page.goto('/register');
@@ -37,7 +37,7 @@ beforeAll(async () => {
 	farmPath = new URL(page.url()).pathname;
 	await page.close();
 });
-afterAll(() => close());
+afterAll(() => release());
 
 async function addField(page: Page, name: string, acres: string, key: string) {
 	await page.getByLabel('Field name').fill(name);

@@ -4,7 +4,7 @@
 import type { BrowserContext } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import {
-	openBrowser,
+	sharedBrowser,
 	overflow,
 	screenshot,
 	sessionCookies,
@@ -17,12 +17,12 @@ import { linkInMail, mailTo } from '../support/mail';
 import { baseUrl, demoUsers } from '../support/server';
 
 let context: BrowserContext;
-let close: () => Promise<void>;
+let release: () => Promise<void>;
 
 beforeAll(async () => {
-	({ context, close } = await openBrowser());
+	({ context, release } = await sharedBrowser());
 });
-afterAll(() => close());
+afterAll(() => release());
 
 describe('an invitation by e-mail', () => {
 	it('the owner invites a reviewer, who signs up from the link and joins the farm', async () => {

@@ -5,7 +5,7 @@
 import type { BrowserContext } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import {
-	openBrowser,
+	sharedBrowser,
 	overflow,
 	screenshot,
 	sessionCookies,
@@ -19,11 +19,11 @@ import { demoUsers } from '../support/server';
 
 const db = testDb();
 let context: BrowserContext;
-let close: () => Promise<void>;
+let release: () => Promise<void>;
 let riskPath: string;
 
 beforeAll(async () => {
-	({ context, close } = await openBrowser());
+	({ context, release } = await sharedBrowser());
 	const farmId = await demoFarmId(db, 'Maple Coulee Farm');
 	const lender = await signedIn(demoUsers.lender);
 	const { plans } = await (await lender.fetch(`/api/v1/farms/${farmId}/plans`)).json();
@@ -31,7 +31,7 @@ beforeAll(async () => {
 	riskPath = `/farms/${farmId}/plans/${plan.id}/risk`;
 	await useSession(context, await sessionCookies(demoUsers.lender));
 });
-afterAll(() => close());
+afterAll(() => release());
 
 describe('a Monte Carlo run on the risk page', () => {
 	it('the lender starts a run, sees its progress, then the result; the address brings it back', async () => {

@@ -7,7 +7,7 @@ import type { BrowserContext, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { OptimiseResult } from '../../src/lib/engine/optimiser/types';
 import {
-	openBrowser,
+	sharedBrowser,
 	overflow,
 	screenshot,
 	smallTargets,
@@ -21,7 +21,7 @@ import { baseUrl } from '../support/server';
 
 const db = testDb();
 let context: BrowserContext;
-let close: () => Promise<void>;
+let release: () => Promise<void>;
 let owner: Client;
 let reviewer: Client;
 let farmId: string;
@@ -31,7 +31,7 @@ const cookiesOf = (client: Client) =>
 	client.cookieList().map((cookie) => ({ ...cookie, url: baseUrl }));
 
 beforeAll(async () => {
-	({ context, close } = await openBrowser());
+	({ context, release } = await sharedBrowser());
 	({ owner, farmId } = await farmFromScenario(db, 'scenarios/reference.json', 'optimiser-e2e'));
 	// The other demo plan files bring their rotations, so the optimiser has a choice to make.
 	for (const file of ['scenarios/small-grain-peas.json', 'scenarios/wide-row-interseeded.json']) {
@@ -49,7 +49,7 @@ beforeAll(async () => {
 	const reference = plans.find((p: { isReference: boolean }) => p.isReference);
 	optimisePath = `/farms/${farmId}/plans/${reference.id}/optimise`;
 });
-afterAll(() => close());
+afterAll(() => release());
 
 type Answer = { result: OptimiseResult; current: { years: OptimiseResult['years'] } };
 

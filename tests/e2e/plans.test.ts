@@ -8,7 +8,7 @@ import { join } from 'node:path';
 import type { BrowserContext, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import {
-	openBrowser,
+	sharedBrowser,
 	overflow,
 	screenshot,
 	smallTargets,
@@ -21,11 +21,11 @@ import { baseUrl } from '../support/server';
 
 const db = testDb();
 let context: BrowserContext;
-let close: () => Promise<void>;
+let release: () => Promise<void>;
 let plansPath: string;
 
 beforeAll(async () => {
-	({ context, close } = await openBrowser());
+	({ context, release } = await sharedBrowser());
 	const { owner, farmId } = await farmFromScenario(db, 'scenarios/reference.json', 'plans-e2e');
 	await useSession(
 		context,
@@ -33,7 +33,7 @@ beforeAll(async () => {
 	);
 	plansPath = `/farms/${farmId}/plans`;
 });
-afterAll(() => close());
+afterAll(() => release());
 
 /** The whole-farm table's net return row as printed, every year. */
 const netReturns = (page: Page) => page.locator('tr[data-row="netReturn"]').textContent();

@@ -11,7 +11,7 @@ import type { BrowserContext, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { capturedMail, memberships, users } from '../../src/lib/server/db/schema';
 import {
-	openBrowser,
+	sharedBrowser,
 	overflow,
 	screenshot,
 	smallTargets,
@@ -26,7 +26,7 @@ import { baseUrl } from '../support/server';
 const run = promisify(execFile);
 const db = testDb();
 let context: BrowserContext;
-let close: () => Promise<void>;
+let release: () => Promise<void>;
 let owner: Client;
 let lender: Client;
 let ownerEmail: string;
@@ -70,7 +70,7 @@ async function lookAt(
 }
 
 beforeAll(async () => {
-	({ context, close } = await openBrowser());
+	({ context, release } = await sharedBrowser());
 	({ owner, farmId } = await farmFromScenario(db, 'scenarios/reference.json', 'review-e2e'));
 	const plans = (await (await owner.fetch(`/api/v1/farms/${farmId}/plans`)).json()) as {
 		plans: { id: string }[];
@@ -90,7 +90,7 @@ beforeAll(async () => {
 		.where(and(eq(memberships.farmId, farmId), eq(memberships.role, 'owner')));
 	ownerEmail = row.email;
 });
-afterAll(() => close());
+afterAll(() => release());
 
 describe('a plan reviewed by the lender', () => {
 	it('is shared, sent back with changes, edited, shared again, approved and printed', async () => {

@@ -8,7 +8,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { formatNumber, formatUsd } from '../../src/lib/format';
 import { MONTH_NAMES } from '../../src/lib/months';
 import {
-	openBrowser,
+	sharedBrowser,
 	overflow,
 	screenshot,
 	smallTargets,
@@ -22,13 +22,13 @@ import { baseUrl } from '../support/server';
 
 const db = testDb();
 let context: BrowserContext;
-let close: () => Promise<void>;
+let release: () => Promise<void>;
 let owner: Client;
 let planPath: string;
 let apiPath: string;
 
 beforeAll(async () => {
-	({ context, close } = await openBrowser());
+	({ context, release } = await sharedBrowser());
 	const built = await farmFromScenario(db, 'scenarios/reference.json', 'risk-e2e');
 	owner = built.owner;
 	const plans = await owner.fetch(`/api/v1/farms/${built.farmId}/plans`);
@@ -40,7 +40,7 @@ beforeAll(async () => {
 		owner.cookieList().map((cookie) => ({ ...cookie, url: baseUrl }))
 	);
 });
-afterAll(() => close());
+afterAll(() => release());
 
 const text = async (page: Page, selector: string) =>
 	((await page.locator(selector).first().textContent()) ?? '').replace(/\s+/g, ' ').trim();

@@ -1,11 +1,17 @@
 // Every screen at phone and desktop width: nothing wider than the window, and a screenshot to look at.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { BrowserContext, Page } from 'playwright-core';
-import { openBrowser, screenshot, sessionCookies, useSession, viewports } from '../support/browser';
+import {
+	sharedBrowser,
+	screenshot,
+	sessionCookies,
+	useSession,
+	viewports
+} from '../support/browser';
 import { demoUsers } from '../support/server';
 
 let context: BrowserContext;
-let close: () => Promise<void>;
+let release: () => Promise<void>;
 let farmPath: string;
 // Who is signed in: a new account of the test's own, and the site admin for the accounts page.
 let newcomer: Awaited<ReturnType<BrowserContext['cookies']>>;
@@ -25,11 +31,14 @@ async function registerThroughForm() {
 }
 
 beforeAll(async () => {
-	[{ context, close }, admin] = await Promise.all([openBrowser(), sessionCookies(demoUsers.admin)]);
+	[{ context, release }, admin] = await Promise.all([
+		sharedBrowser(),
+		sessionCookies(demoUsers.admin)
+	]);
 	await registerThroughForm();
 	newcomer = await context.cookies();
 });
-afterAll(() => close());
+afterAll(() => release());
 
 async function horizontalOverflow(page: Page) {
 	return page.evaluate(() => document.documentElement.scrollWidth - window.innerWidth);

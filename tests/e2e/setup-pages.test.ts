@@ -4,7 +4,13 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { BrowserContext } from 'playwright-core';
 import { testDb } from '../support/db';
-import { openBrowser, screenshot, sessionCookies, useSession, viewports } from '../support/browser';
+import {
+	sharedBrowser,
+	screenshot,
+	sessionCookies,
+	useSession,
+	viewports
+} from '../support/browser';
 import { demoFarmId } from '../support/farms';
 import { demoUsers } from '../support/server';
 
@@ -20,22 +26,22 @@ const pages = [
 ];
 
 let context: BrowserContext;
-let close: () => Promise<void>;
+let release: () => Promise<void>;
 let farmPath: string;
 let owner: Awaited<ReturnType<typeof sessionCookies>>;
 let lender: Awaited<ReturnType<typeof sessionCookies>>;
 
 beforeAll(async () => {
 	let farmId: string;
-	[{ context, close }, owner, lender, farmId] = await Promise.all([
-		openBrowser(),
+	[{ context, release }, owner, lender, farmId] = await Promise.all([
+		sharedBrowser(),
 		sessionCookies(demoUsers.owner),
 		sessionCookies(demoUsers.lender),
 		demoFarmId(testDb(), 'Maple Coulee Farm')
 	]);
 	farmPath = `/farms/${farmId}`;
 });
-afterAll(() => close());
+afterAll(() => release());
 
 describe.each(Object.entries(viewports))('at %s width', (size, viewport) => {
 	it('the owner’s set-up pages fit the window', async () => {

@@ -1,7 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { BrowserContext } from 'playwright-core';
 import {
-	openBrowser,
+	sharedBrowser,
 	screenshot,
 	sessionCookies,
 	signInAs,
@@ -12,12 +12,12 @@ import { registerUser } from '../support/http';
 import { demoUsers } from '../support/server';
 
 let context: BrowserContext;
-let close: () => Promise<void>;
+let release: () => Promise<void>;
 
 beforeAll(async () => {
-	({ context, close } = await openBrowser());
+	({ context, release } = await sharedBrowser());
 });
-afterAll(() => close());
+afterAll(() => release());
 
 describe.each(Object.entries(viewports))('at %s width', (name, viewport) => {
 	it('the owner signs in, opens the farm and sees what is set up', async () => {

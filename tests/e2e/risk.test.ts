@@ -2,12 +2,12 @@
 // imported): the break-even and sensitivity figures shown are the API's (which integration tests hold
 // equal to the engine's), the owner saves the farm's cash-flow settings and the peak loan shown follows.
 // Screenshots at phone and desktop width; nothing sticks out of a phone's screen.
-import AxeBuilder from '@axe-core/playwright';
 import type { BrowserContext, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { formatNumber, formatUsd } from '../../src/lib/format';
 import { MONTH_NAMES } from '../../src/lib/months';
 import {
+	axeViolations,
 	sharedBrowser,
 	overflow,
 	screenshot,
@@ -45,25 +45,13 @@ afterAll(() => release());
 const text = async (page: Page, selector: string) =>
 	((await page.locator(selector).first().textContent()) ?? '').replace(/\s+/g, ' ').trim();
 
-/** WCAG 2.1 A and AA rules as axe-core checks them, run in the page (as tests/e2e/accessibility does). */
-async function violations(page: Page) {
-	const results = await new AxeBuilder({ page })
-		.withTags(['wcag2a', 'wcag2aa', 'wcag21a', 'wcag21aa'])
-		.setLegacyMode()
-		.analyze();
-	expect(results.passes.length).toBeGreaterThan(0);
-	return results.violations.map(
-		(v) => `${v.id}: ${v.nodes.map((n) => n.target.join(' ')).join(', ')}`
-	);
-}
-
 /**
  * At phone width nothing sticks out, every target is big enough and axe finds nothing; then a
  * screenshot at each width.
  */
 async function lookAt(page: Page, name: string) {
 	await page.setViewportSize(viewports.phone);
-	expect(await violations(page)).toEqual([]);
+	expect(await axeViolations(page)).toEqual([]);
 	expect(await overflow(page)).toBe(0);
 	expect(await smallTargets(page)).toEqual([]);
 	await screenshot(page, `${name}-phone`);

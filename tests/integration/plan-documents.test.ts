@@ -54,6 +54,13 @@ describe('plan documents in the database', () => {
 		});
 		const exported = parsed(await exportPlanDocument(db, planId));
 		expect(normalised(exported)).toEqual(normalised(original));
+		// Every export of a plan is the same file: its price maps list their keys in order (the
+		// database's C collation and JavaScript's sort agree), not as the rows happen to come back.
+		for (const set of exported.priceSets) {
+			for (const prices of [set.cropPricesUsdPerUnit, set.seedPrices, set.customRatesUsdPerAcre]) {
+				expect(Object.keys(prices)).toEqual(Object.keys(prices).sort());
+			}
+		}
 	});
 });
 

@@ -66,7 +66,11 @@ export async function setup() {
 	if (!existsSync('build/index.js'))
 		throw new Error('No build/ found: `npm test` builds the app first.');
 	const smtpPort = Number(process.env.TEST_SMTP_PORT);
-	await startMailSink(smtpPort);
+	// Both at once (about 2 s each on this machine): the app only reaches the sink when it sends mail.
+	await Promise.all([startMailSink(smtpPort), startApp(smtpPort)]);
+}
+
+async function startApp(smtpPort: number) {
 	server = spawn(process.execPath, ['build'], {
 		env: {
 			...process.env,

@@ -79,6 +79,9 @@ export async function listPlansForReviewer(db: Db, farmIds: string[]): Promise<R
 			reviewStateOrder[a.state] - reviewStateOrder[b.state] ||
 			(a.state === 'awaiting_review' ? (a.at?.getTime() ?? 0) - (b.at?.getTime() ?? 0) : 0) ||
 			a.farmName.localeCompare(b.farmName) ||
-			a.planName.localeCompare(b.planName)
+			a.planName.localeCompare(b.planName) ||
+			// Farms and plans may share names: the ids keep such rows where they were.
+			a.farmId.localeCompare(b.farmId) ||
+			a.planId.localeCompare(b.planId)
 	);
 }

@@ -75,7 +75,7 @@ export async function listAuditFilters(db: Db | Tx, farmId: string) {
 	return {
 		people: people
 			.map((p) => ({ id: p.id, name: p.name ?? p.email }))
-			.sort((a, b) => a.name.localeCompare(b.name)),
-		plans: plans.sort((a, b) => a.name.localeCompare(b.name))
+			.sort((a, b) => a.name.localeCompare(b.name) || a.id.localeCompare(b.id)),
+		plans: plans.sort((a, b) => a.name.localeCompare(b.name) || a.id.localeCompare(b.id))
 	};
 }

@@ -87,7 +87,7 @@ export async function listCropPracticesByFarm(db: Db | Tx, farmId: string) {
 			otherFertiliserUsdPerAcre: true
 		},
 		where: eq(cropPractices.farmId, farmId),
-		orderBy: asc(cropPractices.name)
+		orderBy: [asc(cropPractices.name), asc(cropPractices.key)]
 	});
 }
 
@@ -215,7 +215,7 @@ export async function listOperationChoices(db: Db | Tx, farmId: string) {
 		})
 		.from(fieldOperations)
 		.where(eq(fieldOperations.farmId, farmId))
-		.orderBy(asc(fieldOperations.month), asc(fieldOperations.name));
+		.orderBy(asc(fieldOperations.month), asc(fieldOperations.name), asc(fieldOperations.key));
 }
 
 /**

@@ -37,7 +37,7 @@ export async function listFarmsForUser(db: Db | Tx, userId: string) {
 		.from(memberships)
 		.innerJoin(farms, eq(farms.id, memberships.farmId))
 		.where(eq(memberships.userId, userId))
-		.orderBy(farms.name);
+		.orderBy(farms.name, farms.id);
 }
 
 export async function findMembership(db: Db | Tx, farmId: string, userId: string) {

@@ -55,7 +55,7 @@ export async function listFieldOperationsByFarm(db: Db | Tx, farmId: string) {
 			repairsUsdPerAcre: true
 		},
 		where: eq(fieldOperations.farmId, farmId),
-		orderBy: [asc(fieldOperations.month), asc(fieldOperations.name)]
+		orderBy: [asc(fieldOperations.month), asc(fieldOperations.name), asc(fieldOperations.key)]
 	});
 }
 

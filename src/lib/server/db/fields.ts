@@ -41,7 +41,7 @@ export async function listFieldsByFarm(db: Db | Tx, farmId: string) {
 			notes: true
 		},
 		where: eq(fields.farmId, farmId),
-		orderBy: asc(fields.name)
+		orderBy: [asc(fields.name), asc(fields.key)]
 	});
 }
 

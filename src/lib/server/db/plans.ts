@@ -12,7 +12,8 @@ export async function listPlansByFarm(db: Db | Tx, farmId: string) {
 	const rows = await db.query.plans.findMany({
 		columns: { id: true, name: true, isReference: true, currentVersion: true },
 		where: eq(plans.farmId, farmId),
-		orderBy: asc(plans.name),
+		// Names need not differ (copies, imports): the id keeps two of one name in the same order.
+		orderBy: [asc(plans.name), asc(plans.id)],
 		with: { versions: { columns: { version: true, startYear: true, years: true } } }
 	});
 	return rows.map(({ versions, ...plan }) => {

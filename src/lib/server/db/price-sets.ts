@@ -230,7 +230,8 @@ export async function listPriceSetsByFarm(db: Db | Tx, farmId: string) {
 		with: {
 			items: {
 				columns: { key: true, priceUsd: true },
-				where: eq(priceSetItems.kind, 'crop')
+				where: eq(priceSetItems.kind, 'crop'),
+				orderBy: asc(priceSetItems.key)
 			}
 		}
 	});
@@ -245,7 +246,8 @@ export async function exportPriceSets(
 	const rows = await db.query.priceSets.findMany({
 		where: and(eq(priceSets.farmId, farmId), inArray(priceSets.year, years)),
 		orderBy: asc(priceSets.year),
-		with: { items: true }
+		// In key order, so the file's price maps list their keys alike in every export.
+		with: { items: { orderBy: [asc(priceSetItems.key), asc(priceSetItems.kind)] } }
 	});
 	return rows.map(priceSetOf);
 }
@@ -317,12 +319,16 @@ function priceSetOf(
 ): PriceSet {
 	const of = (kind: (typeof priceSetItems.$inferSelect)['kind']) =>
 		set.items.filter((item) => item.kind === kind);
+	// One pass over both seed kinds, so the seeds keep the items' key order.
 	const seedPrices = new Map<string, { usdPerThousandSeeds?: number; usdPerLb?: number }>();
-	for (const item of of('seed-per-thousand-seeds')) {
-		seedPrices.set(item.key, { ...seedPrices.get(item.key), usdPerThousandSeeds: item.priceUsd });
-	}
-	for (const item of of('seed-per-lb')) {
-		seedPrices.set(item.key, { ...seedPrices.get(item.key), usdPerLb: item.priceUsd });
+	for (const item of set.items) {
+		const price =
+			item.kind === 'seed-per-thousand-seeds'
+				? { usdPerThousandSeeds: item.priceUsd }
+				: item.kind === 'seed-per-lb'
+					? { usdPerLb: item.priceUsd }
+					: undefined;
+		if (price) seedPrices.set(item.key, { ...seedPrices.get(item.key), ...price });
 	}
 	return {
 		year: set.year,

@@ -47,7 +47,7 @@ export async function listRotationsByFarm(db: Db | Tx, farmId: string) {
 	const rows = await db.query.rotations.findMany({
 		columns: { id: true, name: true },
 		where: eq(rotations.farmId, farmId),
-		orderBy: asc(rotations.name),
+		orderBy: [asc(rotations.name), asc(rotations.key)],
 		with: {
 			steps: {
 				columns: { position: true },

@@ -4,10 +4,10 @@
 import type { BrowserContext } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import {
-	sharedBrowser,
-	overflow,
+	checkBothWidths,
 	screenshot,
 	sessionCookies,
+	sharedBrowser,
 	useSession,
 	viewports
 } from '../support/browser';
@@ -52,11 +52,7 @@ describe('an invitation by e-mail', () => {
 		await expect(page.locator(`[data-invitation="${invitee}"]`).textContent()).resolves.toContain(
 			'Reviewer'
 		);
-		for (const [name, viewport] of Object.entries(viewports)) {
-			await page.setViewportSize(viewport);
-			expect(await overflow(page)).toBeLessThanOrEqual(0);
-			await screenshot(page, `members-${name}`);
-		}
+		await checkBothWidths(page, 'members');
 
 		// The sink caught the invitation; the admin reads it on the captured-mail page.
 		const [mail] = await mailTo(invitee);
@@ -65,11 +61,7 @@ describe('an invitation by e-mail', () => {
 		await useSession(context, await sessionCookies(demoUsers.admin));
 		await page.goto('/admin/mail');
 		await page.getByText(mail.subject).first().click();
-		for (const [name, viewport] of Object.entries(viewports)) {
-			await page.setViewportSize(viewport);
-			expect(await overflow(page)).toBeLessThanOrEqual(0);
-			await screenshot(page, `admin-mail-${name}`);
-		}
+		await checkBothWidths(page, 'admin-mail');
 
 		// The invitee, signed out, follows the link, creates an account and joins.
 		await useSession(context, []);

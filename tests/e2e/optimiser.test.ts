@@ -6,14 +6,7 @@ import { readFile } from 'node:fs/promises';
 import type { BrowserContext, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { OptimiseResult } from '../../src/lib/engine/optimiser/types';
-import {
-	sharedBrowser,
-	overflow,
-	screenshot,
-	smallTargets,
-	useSession,
-	viewports
-} from '../support/browser';
+import { checkBothWidths, sharedBrowser, useSession } from '../support/browser';
 import { testDb } from '../support/db';
 import { addMember, farmFromScenario } from '../support/farms';
 import { registerUser, type Client } from '../support/http';
@@ -171,12 +164,7 @@ describe('an owner', () => {
 		await page.goto(optimisePath);
 		await solve(page, { nitrogen: '30000' });
 		await page.getByTestId('mix-grid').waitFor();
-		for (const [name, size] of Object.entries(viewports)) {
-			await page.setViewportSize(size);
-			expect(await overflow(page)).toBe(0);
-			expect(await smallTargets(page)).toEqual([]);
-			await screenshot(page, `optimiser-${name}`);
-		}
+		await checkBothWidths(page, 'optimiser', { targets: true });
 		await page.close();
 	});
 });

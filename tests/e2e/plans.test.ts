@@ -7,14 +7,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import type { BrowserContext, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import {
-	sharedBrowser,
-	overflow,
-	screenshot,
-	smallTargets,
-	useSession,
-	viewports
-} from '../support/browser';
+import { checkBothWidths, sharedBrowser, useSession } from '../support/browser';
 import { testDb } from '../support/db';
 import { farmFromScenario } from '../support/farms';
 import { baseUrl } from '../support/server';
@@ -148,19 +141,17 @@ describe('an owner', () => {
 		await page.goto(plansPath);
 		await page.locator('[data-plan] a').first().click();
 		await page.locator('tr[data-row="netReturn"] td').first().waitFor();
-		for (const [name, size] of Object.entries(viewports)) {
-			await page.setViewportSize(size);
-			expect(await overflow(page)).toBe(0);
-			expect(await smallTargets(page)).toEqual([]);
+		await checkBothWidths(page, 'plan-editor', {
+			targets: true,
 			// The field names stay in view while the grid scrolls sideways.
-			const grid = page.getByTestId('plan-grid');
-			await grid.evaluate((box) => (box.scrollLeft = box.scrollWidth));
-			const name0 = page.locator('tr[data-field] th').first();
-			const gridBox = (await grid.boundingBox())!;
-			const nameBox = (await name0.boundingBox())!;
-			expect(nameBox.x).toBeGreaterThanOrEqual(gridBox.x - 1);
-			await screenshot(page, `plan-editor-${name}`);
-		}
+			atEach: async () => {
+				const grid = page.getByTestId('plan-grid');
+				await grid.evaluate((box) => (box.scrollLeft = box.scrollWidth));
+				const gridBox = (await grid.boundingBox())!;
+				const nameBox = (await page.locator('tr[data-field] th').first().boundingBox())!;
+				expect(nameBox.x).toBeGreaterThanOrEqual(gridBox.x - 1);
+			}
+		});
 		await page.close();
 	});
 });

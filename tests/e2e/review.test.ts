@@ -10,14 +10,7 @@ import { and, arrayContains, eq } from 'drizzle-orm';
 import type { BrowserContext, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { capturedMail, memberships, users } from '../../src/lib/server/db/schema';
-import {
-	sharedBrowser,
-	overflow,
-	screenshot,
-	smallTargets,
-	useSession,
-	viewports
-} from '../support/browser';
+import { checkBothWidths, sharedBrowser, useSession } from '../support/browser';
 import { testDb } from '../support/db';
 import { addMember, farmFromScenario } from '../support/farms';
 import { registerUser, type Client } from '../support/http';
@@ -55,18 +48,16 @@ async function lookAt(
 	name: string,
 	{ targets = true, besides = [] as string[], section = '' } = {}
 ) {
-	for (const [size, viewport] of Object.entries(viewports)) {
-		await page.setViewportSize(viewport);
-		expect(await overflow(page)).toBe(0);
-		if (targets) {
-			expect((await smallTargets(page)).filter((t) => !besides.includes(t ?? ''))).toEqual([]);
-		}
-		await screenshot(page, `${name}-${size}`);
+	await checkBothWidths(page, name, {
+		targets,
+		besides,
 		// The part looked at, on its own: a long page's full screenshot is too small to read.
-		if (section) {
-			await page.locator(section).screenshot({ path: `screenshots/${name}-${size}-part.png` });
+		atEach: async (size) => {
+			if (section && process.env.SCREENSHOTS) {
+				await page.locator(section).screenshot({ path: `screenshots/${name}-${size}-part.png` });
+			}
 		}
-	}
+	});
 }
 
 beforeAll(async () => {

@@ -8,10 +8,8 @@ import { formatNumber, formatUsd } from '../../src/lib/format';
 import { MONTH_NAMES } from '../../src/lib/months';
 import {
 	axeViolations,
+	checkBothWidths,
 	sharedBrowser,
-	overflow,
-	screenshot,
-	smallTargets,
 	useSession,
 	viewports
 } from '../support/browser';
@@ -46,17 +44,13 @@ const text = async (page: Page, selector: string) =>
 	((await page.locator(selector).first().textContent()) ?? '').replace(/\s+/g, ' ').trim();
 
 /**
- * At phone width nothing sticks out, every target is big enough and axe finds nothing; then a
- * screenshot at each width.
+ * At phone width axe finds nothing; at phone and desktop width nothing sticks out and every target is
+ * big enough, with a screenshot at each.
  */
 async function lookAt(page: Page, name: string) {
 	await page.setViewportSize(viewports.phone);
 	expect(await axeViolations(page)).toEqual([]);
-	expect(await overflow(page)).toBe(0);
-	expect(await smallTargets(page)).toEqual([]);
-	await screenshot(page, `${name}-phone`);
-	await page.setViewportSize(viewports.desktop);
-	await screenshot(page, `${name}-desktop`);
+	await checkBothWidths(page, name, { targets: true });
 }
 
 describe('a lender’s view of a plan’s risk', () => {

@@ -4,13 +4,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { BrowserContext } from 'playwright-core';
 import { testDb } from '../support/db';
-import {
-	sharedBrowser,
-	screenshot,
-	sessionCookies,
-	useSession,
-	viewports
-} from '../support/browser';
+import { checkBothWidths, sharedBrowser, sessionCookies, useSession } from '../support/browser';
 import { demoFarmId } from '../support/farms';
 import { demoUsers } from '../support/server';
 
@@ -43,19 +37,15 @@ beforeAll(async () => {
 });
 afterAll(() => release());
 
-describe.each(Object.entries(viewports))('at %s width', (size, viewport) => {
+// Each page loaded once and looked at in both widths by resizing it.
+describe('every set-up page at phone and desktop width', () => {
 	it('the owner’s set-up pages fit the window', async () => {
 		await useSession(context, owner);
 		const page = await context.newPage();
-		await page.setViewportSize(viewport);
 		for (const name of pages) {
 			const response = await page.goto(`${farmPath}/${name}`);
 			expect(response?.status(), name).toBe(200);
-			const wider = await page.evaluate(
-				() => document.documentElement.scrollWidth - window.innerWidth
-			);
-			expect(wider, `${name} is wider than the window`).toBeLessThanOrEqual(0);
-			await screenshot(page, `setup-${name}-owner-${size}`);
+			await checkBothWidths(page, `setup-${name}-owner`);
 		}
 		await page.close();
 	});
@@ -63,17 +53,12 @@ describe.each(Object.entries(viewports))('at %s width', (size, viewport) => {
 	it('the lender reads every set-up page with no edit controls', async () => {
 		await useSession(context, lender);
 		const page = await context.newPage();
-		await page.setViewportSize(viewport);
 		for (const name of pages) {
 			const response = await page.goto(`${farmPath}/${name}`);
 			expect(response?.status(), name).toBe(200);
 			await expect(page.locator('main form').count(), `${name} has a form`).resolves.toBe(0);
 			await expect(page.locator('main button').count(), `${name} has a button`).resolves.toBe(0);
-			const wider = await page.evaluate(
-				() => document.documentElement.scrollWidth - window.innerWidth
-			);
-			expect(wider, `${name} is wider than the window`).toBeLessThanOrEqual(0);
-			await screenshot(page, `setup-${name}-lender-${size}`);
+			await checkBothWidths(page, `setup-${name}-lender`);
 		}
 		await page.close();
 	});

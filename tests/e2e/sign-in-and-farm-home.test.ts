@@ -1,6 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { BrowserContext } from 'playwright-core';
 import {
+	checkBothWidths,
 	sharedBrowser,
 	screenshot,
 	sessionCookies,
@@ -19,13 +20,14 @@ beforeAll(async () => {
 });
 afterAll(() => release());
 
-describe.each(Object.entries(viewports))('at %s width', (name, viewport) => {
+// The way in, at phone width; each page also looked at in desktop width by resizing it.
+describe('signing in and the farm home', () => {
 	it('the owner signs in, opens the farm and sees what is set up', async () => {
 		await context.clearCookies();
 		const page = await context.newPage();
-		await page.setViewportSize(viewport);
 		await page.goto('/signin');
-		await screenshot(page, `sign-in-${name}`);
+		await checkBothWidths(page, 'sign-in');
+		await page.setViewportSize(viewports.phone);
 		await signInAs(page, demoUsers.owner);
 		await page.waitForURL('**/farms');
 		await expect(
@@ -46,20 +48,13 @@ describe.each(Object.entries(viewports))('at %s width', (name, viewport) => {
 			/Dana Whitcombe\s*· reviewer/
 		);
 		// Nothing may be wider than the window: tables scroll inside their own box.
-		const overflow = await page.evaluate(
-			() => document.documentElement.scrollWidth - window.innerWidth
-		);
-		expect(overflow).toBeLessThanOrEqual(0);
-		await screenshot(page, `farm-home-${name}`);
+		await checkBothWidths(page, 'farm-home');
 
+		await page.setViewportSize(viewports.phone);
 		await page.getByRole('link', { name: 'Fields', exact: true }).click();
 		await page.waitForURL(/\/data#fields$/);
 		await expect(page.getByRole('cell', { name: 'North Flat' }).isVisible()).resolves.toBe(true);
-		const dataOverflow = await page.evaluate(
-			() => document.documentElement.scrollWidth - window.innerWidth
-		);
-		expect(dataOverflow).toBeLessThanOrEqual(0);
-		await screenshot(page, `farm-data-${name}`);
+		await checkBothWidths(page, 'farm-data');
 		await page.close();
 	});
 });

@@ -10,7 +10,8 @@ import { configDefaults, defineConfig } from 'vitest/config';
 export default defineConfig({
 	plugins: [tailwindcss(), sveltekit()],
 	test: {
-		expect: { requireAssertions: true },
+		// A poll waits on the app's answers, which a busy machine slows well past vitest's 1 s default.
+		expect: { requireAssertions: true, poll: { timeout: 15_000 } },
 		allowOnly: false,
 		maxWorkers: 2,
 		projects: [

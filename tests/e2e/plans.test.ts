@@ -35,7 +35,7 @@ const netReturns = (page: Page) => page.locator('tr[data-row="netReturn"]').text
 async function afterResults(page: Page, change: () => Promise<unknown>) {
 	const before = await netReturns(page);
 	await change();
-	await expect.poll(() => netReturns(page), { timeout: 10_000 }).not.toBe(before);
+	await expect.poll(() => netReturns(page)).not.toBe(before);
 	return netReturns(page);
 }
 

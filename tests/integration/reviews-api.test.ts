@@ -112,7 +112,7 @@ async function mailTo(to: string, subject: string) {
 			.where(arrayContains(capturedMail.envelopeTo, [to]))
 			.orderBy(desc(capturedMail.receivedAt))
 			.then((rows) => rows.filter((m) => m.subject.includes(subject)));
-	await expect.poll(async () => (await find()).length, { timeout: 5000 }).toBeGreaterThan(0);
+	await expect.poll(async () => (await find()).length).toBeGreaterThan(0);
 	return (await find())[0];
 }
 

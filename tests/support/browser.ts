@@ -37,7 +37,11 @@ export async function openBrowser(): Promise<{
 			'--no-first-run',
 			'--disable-background-networking',
 			'--disable-component-update',
-			'--disable-sync'
+			'--disable-sync',
+			// One renderer process for all pages, kept from page to page with the app's compiled
+			// scripts in it, instead of a new process per page: the e2e files took 119–130 CPU-s
+			// instead of 147–155 (61–66 s instead of 75–79 s) when measured here.
+			'--renderer-process-limit=1'
 		]
 	});
 	return {
@@ -88,8 +92,13 @@ export async function sessionCookies(email: string): Promise<SessionCookies> {
 	return client.cookieList().map((cookie) => ({ ...cookie, url: baseUrl }));
 }
 
-/** Makes the context's pages signed in with these cookies only (none: signed out). */
+/**
+ * Makes the context's pages signed in with these cookies only (none: signed out). Open pages go to a
+ * blank page first: every answer of the app renews the session cookie, so a request still on its way
+ * from the last user's page would otherwise sign the context back in as them.
+ */
 export async function useSession(context: BrowserContext, cookies: SessionCookies) {
+	await Promise.all(context.pages().map((page) => page.goto('about:blank')));
 	await context.clearCookies();
 	if (cookies.length) await context.addCookies(cookies);
 }

@@ -1,7 +1,13 @@
 // Accessibility rules (WCAG 2.1 A and AA, as axe-core checks them) on the main screens.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { BrowserContext, Page } from 'playwright-core';
-import { axeViolations, sharedBrowser, sessionCookies, useSession } from '../support/browser';
+import {
+	axeViolations,
+	openPath,
+	sessionCookies,
+	sharedBrowser,
+	useSession
+} from '../support/browser';
 import { demoUsers } from '../support/server';
 
 let context: BrowserContext;
@@ -88,7 +94,7 @@ describe('accessibility', () => {
 	it.each(screens)('the %s has no WCAG A/AA violations', async (_name, path) => {
 		await useSession(context, owner);
 		const page = await context.newPage();
-		await page.goto(path());
+		await openPath(page, path());
 		expect(await axeViolations(page)).toEqual([]);
 		await page.close();
 	});
@@ -105,7 +111,7 @@ describe('accessibility', () => {
 			await useSession(context, cookies());
 			const page = await context.newPage();
 			const waiting = requestsWaiting(page);
-			await page.goto(path());
+			await openPath(page, path());
 			await expect.poll(() => page.locator(shows).count()).toBeGreaterThanOrEqual(atLeast);
 			// The charts set the reference plan beside this one once its results come too: a request
 			// the page sent as it opened, so once none waits, the page is as it stays.
@@ -118,7 +124,7 @@ describe('accessibility', () => {
 	it('the sign-in page has none, signed out', async () => {
 		await useSession(context, []);
 		const page = await context.newPage();
-		await page.goto('/signin');
+		await openPath(page, '/signin');
 		expect(await axeViolations(page)).toEqual([]);
 		await page.close();
 	});

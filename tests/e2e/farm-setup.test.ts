@@ -4,8 +4,9 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { BrowserContext, Page } from 'playwright-core';
 import {
 	checkBothWidths,
-	sharedBrowser,
+	openPath,
 	screenshot,
+	sharedBrowser,
 	signInAs,
 	viewports
 } from '../support/browser';
@@ -19,7 +20,7 @@ beforeAll(async () => {
 	({ context, release } = await sharedBrowser());
 	// A new account and farm of the test's own, made through the forms; the demo farm is only read.
 	const page = await context.newPage();
-	await page.goto('/register');
+	await openPath(page, '/register');
 	await page.getByLabel('Your name').fill('Fields Tester');
 	await page
 		.getByLabel('E-mail')
@@ -48,7 +49,7 @@ async function addField(page: Page, name: string, acres: string, key: string) {
 describe('an owner', () => {
 	it('adds a field through the form; a slip is shown as soon as the user leaves the input', async () => {
 		const page = await context.newPage();
-		await page.goto(`${farmPath}/fields`);
+		await openPath(page, `${farmPath}/fields`);
 		await page.getByLabel('Field name').fill('Creek Bottom');
 		await page.getByLabel('Area (ac)').fill('-3');
 		await page.getByLabel('Productivity index').focus();
@@ -81,7 +82,7 @@ describe('an owner', () => {
 
 	it('sorts the table by a heading, and back', async () => {
 		const page = await context.newPage();
-		await page.goto(`${farmPath}/fields`);
+		await openPath(page, `${farmPath}/fields`);
 		await page.locator('a[data-sort="area"]').click();
 		await page.waitForURL(/sort=area&dir=asc/);
 		const names = () => page.locator('tbody tr td:first-child').allTextContents();
@@ -103,7 +104,7 @@ describe('an owner', () => {
 
 	it('uploads fields from a CSV: a bad row imports nothing and is shown; fixed, all rows import', async () => {
 		const page = await context.newPage();
-		await page.goto(`${farmPath}/fields`);
+		await openPath(page, `${farmPath}/fields`);
 		await page.getByRole('link', { name: 'Upload fields from a CSV file' }).click();
 		await page.waitForURL(/\/upload\/fields$/);
 		const header = 'name,acres,productivityIndex,priorCrop,tenure,cashRentUsdPerAcre,notes';
@@ -141,7 +142,7 @@ describe('an owner', () => {
 
 	it('adds a crop of the farm’s own', async () => {
 		const page = await context.newPage();
-		await page.goto(`${farmPath}/crops`);
+		await openPath(page, `${farmPath}/crops`);
 		await page.getByLabel('Crop name').fill('Grain sorghum');
 		await page.getByLabel('Sold by the').selectOption('cwt');
 		await page.getByRole('button', { name: 'Add crop' }).click();
@@ -167,7 +168,7 @@ describe('a reviewer (the demo lender)', () => {
 		await expect(page.getByRole('heading', { name: 'Add a field' }).count()).resolves.toBe(0);
 		await expect(page.getByRole('link', { name: /^Edit/ }).count()).resolves.toBe(0);
 		await expect(page.locator('main form').count()).resolves.toBe(0);
-		await page.goto(page.url().replace(/fields$/, 'crops'));
+		await openPath(page, page.url().replace(/fields$/, 'crops'));
 		await expect(page.getByRole('heading', { name: 'Add a crop' }).count()).resolves.toBe(0);
 		await page.close();
 		await context.clearCookies();
@@ -181,7 +182,7 @@ describe('at phone and desktop width', () => {
 		await page.setViewportSize(viewports.phone);
 		// An owner of its own, so the screenshots show the same two fields whatever ran before.
 		await context.clearCookies();
-		await page.goto('/register');
+		await openPath(page, '/register');
 		await page.getByLabel('Your name').fill('Screens');
 		await page
 			.getByLabel('E-mail')
@@ -196,7 +197,7 @@ describe('at phone and desktop width', () => {
 		await page.getByRole('button', { name: 'Create farm' }).click();
 		await page.waitForURL(/\/farms\/[0-9a-f-]{36}$/);
 		const home = new URL(page.url()).pathname;
-		await page.goto(`${home}/fields`);
+		await openPath(page, `${home}/fields`);
 		await addField(page, 'North Forty', '40.5', 'north-forty');
 		await addField(page, 'Creek Bottom', '22', 'creek-bottom');
 		await page.getByLabel('Field name').fill('');
@@ -217,7 +218,7 @@ describe('at phone and desktop width', () => {
 		await expect(page.locator('tr[data-field="North Forty"]').count()).resolves.toBe(0);
 
 		await page.setViewportSize(viewports.phone);
-		await page.goto(`${home}/crops`);
+		await openPath(page, `${home}/crops`);
 		await page.getByLabel('Crop name').fill('Flax');
 		await page.getByRole('button', { name: 'Add crop' }).click();
 		// Sold by the bushel (the first choice) needs the bushel's weight: said before anything is sent.
@@ -243,7 +244,7 @@ describe('at phone and desktop width', () => {
 		await page.waitForURL('**/farms');
 		await page.getByTestId('farm-list').getByText('Maple Coulee Farm').click();
 		await page.waitForURL(/\/farms\/[0-9a-f-]{36}$/);
-		await page.goto(`${new URL(page.url()).pathname}/fields`);
+		await openPath(page, `${new URL(page.url()).pathname}/fields`);
 		const firstCell = page.getByRole('cell', { name: 'North Flat' });
 		await checkBothWidths(page, 'fields-reviewer', {
 			atEach: async (size) => {
@@ -261,7 +262,7 @@ describe('at phone and desktop width', () => {
 				await page.locator('table').evaluate((table) => (table.parentElement!.scrollLeft = 0));
 			}
 		});
-		await page.goto(page.url().replace(/fields$/, 'crops'));
+		await openPath(page, page.url().replace(/fields$/, 'crops'));
 		await checkBothWidths(page, 'crops-reviewer');
 		await page.close();
 		await context.clearCookies();

@@ -5,6 +5,7 @@ import type { BrowserContext } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import {
 	checkBothWidths,
+	openPath,
 	screenshot,
 	sessionCookies,
 	sharedBrowser,
@@ -42,7 +43,7 @@ describe('an invitation by e-mail', () => {
 		);
 		const page = await context.newPage();
 		await page.setViewportSize(viewports.desktop);
-		await page.goto(`/farms/${farmId}`);
+		await openPath(page, `/farms/${farmId}`);
 		await page.getByRole('link', { name: 'Members and invitations' }).click();
 		await page.waitForURL(`**/farms/${farmId}/members`);
 		await page.getByLabel('E-mail address').fill(invitee);
@@ -59,14 +60,14 @@ describe('an invitation by e-mail', () => {
 		expect(mail.subject).toBe('Invitation to Invitation Creek Farm on Furrowcast');
 		const link = await linkInMail(invitee, '/invitations/');
 		await useSession(context, await sessionCookies(demoUsers.admin));
-		await page.goto('/admin/mail');
+		await openPath(page, '/admin/mail');
 		await page.getByText(mail.subject).first().click();
 		await checkBothWidths(page, 'admin-mail');
 
 		// The invitee, signed out, follows the link, creates an account and joins.
 		await useSession(context, []);
 		await page.setViewportSize(viewports.phone);
-		await page.goto(link);
+		await openPath(page, link);
 		await screenshot(page, 'invitation-phone');
 		await page.getByRole('link', { name: 'Create an account' }).click();
 		await page.waitForURL('**/register?**');

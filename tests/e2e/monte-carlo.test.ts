@@ -5,10 +5,11 @@
 import type { BrowserContext } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import {
-	sharedBrowser,
+	openPath,
 	overflow,
 	screenshot,
 	sessionCookies,
+	sharedBrowser,
 	useSession,
 	viewports
 } from '../support/browser';
@@ -37,7 +38,7 @@ describe('a Monte Carlo run on the risk page', () => {
 	it('the lender starts a run, sees its progress, then the result; the address brings it back', async () => {
 		const page = context.pages()[0] ?? (await context.newPage());
 		await page.setViewportSize(viewports.desktop);
-		await page.goto(riskPath);
+		await openPath(page, riskPath);
 		const form = page.getByRole('form', { name: 'Monte Carlo settings' });
 		await expect(
 			form.getByRole('spinbutton', { name: 'Corn yield CV, %' }).inputValue()

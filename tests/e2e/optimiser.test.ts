@@ -6,7 +6,7 @@ import { readFile } from 'node:fs/promises';
 import type { BrowserContext, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { OptimiseResult } from '../../src/lib/engine/optimiser/types';
-import { checkBothWidths, sharedBrowser, useSession } from '../support/browser';
+import { checkBothWidths, openPath, sharedBrowser, useSession } from '../support/browser';
 import { testDb } from '../support/db';
 import { addMember, farmFromScenario } from '../support/farms';
 import { registerUser, type Client } from '../support/http';
@@ -67,7 +67,7 @@ describe('an owner', () => {
 	it('solves under an N cap, sees the cap bind, and saves the mix as a plan', async () => {
 		const page = await context.newPage();
 		await useSession(context, cookiesOf(owner));
-		await page.goto(optimisePath);
+		await openPath(page, optimisePath);
 		const { status, body } = await solve(page, { nitrogen: '30000', soybeanPercent: '50' });
 		expect(status).toBe(200);
 		const { result, current } = body as Answer;
@@ -112,7 +112,7 @@ describe('an owner', () => {
 	it('shows a refused option beside its box', async () => {
 		const page = await context.newPage();
 		await useSession(context, cookiesOf(owner));
-		await page.goto(optimisePath);
+		await openPath(page, optimisePath);
 		const { status } = await solve(page, { nitrogen: '-5' });
 		expect(status).toBe(422);
 		const issue = page.locator('[data-issue-for="limits.nitrogenPurchasedLbPerYear"]');
@@ -127,7 +127,7 @@ describe('an owner', () => {
 	it('draws an N trade-off curve as a queued job, kept over a reload, and shows a point’s mix', async () => {
 		const page = await context.newPage();
 		await useSession(context, cookiesOf(owner));
-		await page.goto(optimisePath);
+		await openPath(page, optimisePath);
 		await page.getByLabel('Limit to sweep').selectOption('nitrogen');
 		await page.getByLabel('From (lb N a year)').fill('10000');
 		await page.getByLabel('To (lb N a year)').fill('45000');
@@ -161,7 +161,7 @@ describe('an owner', () => {
 	it('shows a usable optimiser at phone and desktop width', async () => {
 		const page = await context.newPage();
 		await useSession(context, cookiesOf(owner));
-		await page.goto(optimisePath);
+		await openPath(page, optimisePath);
 		await solve(page, { nitrogen: '30000' });
 		await page.getByTestId('mix-grid').waitFor();
 		await checkBothWidths(page, 'optimiser', { targets: true });
@@ -173,7 +173,7 @@ describe('a reviewer (lender)', () => {
 	it('solves and reads the answer, but is not offered to save it', async () => {
 		const page = await context.newPage();
 		await useSession(context, cookiesOf(reviewer));
-		await page.goto(optimisePath);
+		await openPath(page, optimisePath);
 		const { status } = await solve(page, { nitrogen: '30000' });
 		expect(status).toBe(200);
 		await page.getByTestId('binding-limits').waitFor();

@@ -7,7 +7,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import type { BrowserContext, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { checkBothWidths, sharedBrowser, useSession } from '../support/browser';
+import { checkBothWidths, openPath, sharedBrowser, useSession } from '../support/browser';
 import { testDb } from '../support/db';
 import { farmFromScenario } from '../support/farms';
 import { baseUrl } from '../support/server';
@@ -40,7 +40,7 @@ async function afterResults(page: Page, change: () => Promise<unknown>) {
 }
 
 async function openNewCopy(page: Page, name: string) {
-	await page.goto(plansPath);
+	await openPath(page, plansPath);
 	await page.getByLabel('Name of the new plan').fill(name);
 	await page.getByRole('button', { name: 'Make the copy' }).click();
 	await page.waitForURL(/\/plans\/[0-9a-f-]{36}$/);
@@ -50,14 +50,14 @@ async function openNewCopy(page: Page, name: string) {
 describe('an owner', () => {
 	it('imports a plan file and lands on its editor with its results', async () => {
 		const page = await context.newPage();
-		await page.goto(plansPath);
+		await openPath(page, plansPath);
 		await page
 			.getByLabel('Plan file', { exact: true })
 			.setInputFiles('scenarios/small-grain-peas.json');
 		await page.getByRole('button', { name: 'Import' }).click();
 		await page.waitForURL(/\/plans\/[0-9a-f-]{36}$/);
 		await expect.poll(() => page.locator('tr[data-row="netReturn"] td').count()).toBe(5);
-		await page.goto(plansPath);
+		await openPath(page, plansPath);
 		expect(await page.locator('[data-plan]').count()).toBe(2);
 		await page.close();
 	});
@@ -69,14 +69,14 @@ describe('an owner', () => {
 		bad.plan.fieldRotations[0].rotationId = 'no-such-rotation';
 		const file = join(tmpdir(), `bad-plan-${crypto.randomUUID()}.json`);
 		await writeFile(file, JSON.stringify(bad));
-		await page.goto(plansPath);
+		await openPath(page, plansPath);
 		const before = await page.locator('[data-plan]').count();
 		await page.getByLabel('Plan file', { exact: true }).setInputFiles(file);
 		await page.getByRole('button', { name: 'Import' }).click();
 		const issues = page.getByTestId('import-issues');
 		await expect.poll(() => issues.textContent()).toContain('fields.0.acres');
 		expect(await issues.textContent()).toContain('plan.fieldRotations.0.rotationId');
-		await page.goto(plansPath);
+		await openPath(page, plansPath);
 		expect(await page.locator('[data-plan]').count()).toBe(before);
 		await page.close();
 	});
@@ -123,7 +123,7 @@ describe('an owner', () => {
 
 	it('compares the plans with the reference plan, each with its partial budget', async () => {
 		const page = await context.newPage();
-		await page.goto(plansPath);
+		await openPath(page, plansPath);
 		for (const box of await page.getByRole('checkbox', { name: /^Compare / }).all()) {
 			await box.check();
 		}
@@ -138,7 +138,7 @@ describe('an owner', () => {
 
 	it('shows a usable editor at phone and desktop width', async () => {
 		const page = await context.newPage();
-		await page.goto(plansPath);
+		await openPath(page, plansPath);
 		await page.locator('[data-plan] a').first().click();
 		await page.locator('tr[data-row="netReturn"] td').first().waitFor();
 		await checkBothWidths(page, 'plan-editor', {

@@ -10,7 +10,7 @@ import { and, arrayContains, eq } from 'drizzle-orm';
 import type { BrowserContext, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { capturedMail, memberships, users } from '../../src/lib/server/db/schema';
-import { checkBothWidths, sharedBrowser, useSession } from '../support/browser';
+import { checkBothWidths, openPath, sharedBrowser, useSession } from '../support/browser';
 import { testDb } from '../support/db';
 import { addMember, farmFromScenario } from '../support/farms';
 import { registerUser, type Client } from '../support/http';
@@ -33,7 +33,7 @@ const session = (client: Client) =>
 	);
 /** Opens a plan page and waits for its live results: the page's scripts are running by then. */
 async function openPlan(page: Page, path: string) {
-	await page.goto(path);
+	await openPath(page, path);
 	await page.locator('tr[data-row="netReturn"] td').first().waitFor();
 }
 const reviewState = (page: Page) =>
@@ -97,7 +97,7 @@ describe('a plan reviewed by the lender', () => {
 
 		// The lender finds it first on their home, and asks for changes.
 		await session(lender);
-		await page.goto('/farms');
+		await openPath(page, '/farms');
 		const first = page.getByTestId('reviewer-plans').locator('tr[data-plan-row]').first();
 		expect(await first.getAttribute('data-state')).toBe('awaiting_review');
 		expect(await first.textContent()).toContain('Cover crops grazed');
@@ -161,7 +161,7 @@ describe('a plan reviewed by the lender', () => {
 		).toBe('changes_requested');
 
 		// The report of version 2, on screen and printed.
-		await page.goto(`${planPath}/report?version=2`);
+		await openPath(page, `${planPath}/report?version=2`);
 		await page.getByTestId('plan-report').waitFor();
 		await lookAt(page, 'plan-report', { targets: false });
 		// The budget's lines are open, to print.

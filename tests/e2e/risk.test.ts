@@ -9,6 +9,7 @@ import { MONTH_NAMES } from '../../src/lib/months';
 import {
 	axeViolations,
 	checkBothWidths,
+	openPath,
 	sharedBrowser,
 	useSession,
 	viewports
@@ -61,7 +62,7 @@ describe('a lender’s view of a plan’s risk', () => {
 		]);
 		const page = await context.newPage();
 		await page.setViewportSize(viewports.phone);
-		await page.goto(`${planPath}/risk?steps=-15,15`);
+		await openPath(page, `${planPath}/risk?steps=-15,15`);
 		expect(await text(page, '[data-testid="credit-caution"]')).toMatch(
 			/credit decisions rest with the lender/i
 		);
@@ -95,7 +96,7 @@ describe('a lender’s view of a plan’s risk', () => {
 	it('saves the cash-flow settings and shows the peak loan that follows', async () => {
 		const page = await context.newPage();
 		await page.setViewportSize(viewports.phone);
-		await page.goto(`${planPath}/cash-flow`);
+		await openPath(page, `${planPath}/cash-flow`);
 		await page.getByLabel(/Cash on hand at the start/).fill('25000');
 		await page.getByLabel('Minimum balance to keep ($)').fill('5000');
 		await page.getByLabel('Corn', { exact: true }).selectOption('12');

@@ -3,8 +3,9 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { BrowserContext } from 'playwright-core';
 import {
 	checkBothWidths,
-	sharedBrowser,
+	openPath,
 	sessionCookies,
+	sharedBrowser,
 	useSession,
 	viewports
 } from '../support/browser';
@@ -19,7 +20,7 @@ let admin: Awaited<ReturnType<typeof sessionCookies>>;
 /** Registers through the form like a first-time visitor; the context is then signed in as them. */
 async function registerThroughForm() {
 	const page = await context.newPage();
-	await page.goto('/register');
+	await openPath(page, '/register');
 	await page.getByLabel('Your name').fill('Screens Tester');
 	await page.getByLabel('E-mail').fill(`screens-${crypto.randomUUID().slice(0, 8)}@example.test`);
 	await page.getByLabel('Password', { exact: true }).fill('screens-password');
@@ -45,7 +46,7 @@ describe('every screen at phone and desktop width', () => {
 		await useSession(context, newcomer);
 		const page = await context.newPage();
 		await page.setViewportSize(viewports.phone);
-		await page.goto('/farms');
+		await openPath(page, '/farms');
 		// The form starts open for someone with no farms yet, folded away otherwise.
 		const formOpen = await page.locator('details').evaluate((d) => (d as HTMLDetailsElement).open);
 		if (!formOpen) await page.getByText('New farm…').click();
@@ -56,7 +57,7 @@ describe('every screen at phone and desktop width', () => {
 		await page.getByLabel('Farm name').fill('Screens farm');
 		await page.getByRole('button', { name: 'Create farm' }).click();
 		await page.waitForURL(/\/farms\/[0-9a-f-]{36}$/);
-		await page.goto(`${new URL(page.url()).pathname}/settings`);
+		await openPath(page, `${new URL(page.url()).pathname}/settings`);
 		await expect(page.getByLabel('Farm name').inputValue()).resolves.toBe('Screens farm');
 		await checkBothWidths(page, 'farm-settings');
 		await page.close();
@@ -65,7 +66,7 @@ describe('every screen at phone and desktop width', () => {
 	it('the accounts page fits the window (site admin)', async () => {
 		await useSession(context, admin);
 		const page = await context.newPage();
-		await page.goto('/admin');
+		await openPath(page, '/admin');
 		await expect(page.getByRole('cell', { name: demoUsers.lender }).isVisible()).resolves.toBe(
 			true
 		);
@@ -76,7 +77,7 @@ describe('every screen at phone and desktop width', () => {
 	it.each(['/glossary', '/'])('%s fits the window', async (path) => {
 		await useSession(context, newcomer);
 		const page = await context.newPage();
-		const response = await page.goto(path);
+		const response = await openPath(page, path);
 		expect(response?.status()).toBe(200);
 		await checkBothWidths(page, path.slice(1) || 'home');
 		await page.close();

@@ -4,7 +4,13 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { BrowserContext } from 'playwright-core';
 import { testDb } from '../support/db';
-import { checkBothWidths, sharedBrowser, sessionCookies, useSession } from '../support/browser';
+import {
+	checkBothWidths,
+	openPath,
+	sessionCookies,
+	sharedBrowser,
+	useSession
+} from '../support/browser';
 import { demoFarmId } from '../support/farms';
 import { demoUsers } from '../support/server';
 
@@ -43,7 +49,7 @@ describe('every set-up page at phone and desktop width', () => {
 		await useSession(context, owner);
 		const page = await context.newPage();
 		for (const name of pages) {
-			const response = await page.goto(`${farmPath}/${name}`);
+			const response = await openPath(page, `${farmPath}/${name}`);
 			expect(response?.status(), name).toBe(200);
 			await checkBothWidths(page, `setup-${name}-owner`);
 		}
@@ -54,7 +60,7 @@ describe('every set-up page at phone and desktop width', () => {
 		await useSession(context, lender);
 		const page = await context.newPage();
 		for (const name of pages) {
-			const response = await page.goto(`${farmPath}/${name}`);
+			const response = await openPath(page, `${farmPath}/${name}`);
 			expect(response?.status(), name).toBe(200);
 			await expect(page.locator('main form').count(), `${name} has a form`).resolves.toBe(0);
 			await expect(page.locator('main button').count(), `${name} has a button`).resolves.toBe(0);
@@ -68,7 +74,7 @@ describe('the lender posting anyway', () => {
 	it('is refused with 403 and nothing changes', async () => {
 		await useSession(context, lender);
 		const page = await context.newPage();
-		await page.goto(`${farmPath}/fields`);
+		await openPath(page, `${farmPath}/fields`);
 		const before = await page.locator('tbody tr').count();
 		const answer = await page.request.post(`${farmPath}/fields?/create`, {
 			form: { name: 'Lender field', area: '5', productivityIndex: '1' },

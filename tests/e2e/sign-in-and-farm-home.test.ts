@@ -2,9 +2,10 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { BrowserContext } from 'playwright-core';
 import {
 	checkBothWidths,
-	sharedBrowser,
+	openPath,
 	screenshot,
 	sessionCookies,
+	sharedBrowser,
 	signInAs,
 	useSession,
 	viewports
@@ -25,7 +26,7 @@ describe('signing in and the farm home', () => {
 	it('the owner signs in, opens the farm and sees what is set up', async () => {
 		await context.clearCookies();
 		const page = await context.newPage();
-		await page.goto('/signin');
+		await openPath(page, '/signin');
 		await checkBothWidths(page, 'sign-in');
 		await page.setViewportSize(viewports.phone);
 		await signInAs(page, demoUsers.owner);
@@ -76,12 +77,12 @@ describe('refusals in the browser', () => {
 	it('the lender sees the farm but is refused its settings page', async () => {
 		await useSession(context, await sessionCookies(demoUsers.lender));
 		const page = await context.newPage();
-		await page.goto('/farms');
+		await openPath(page, '/farms');
 		// Above the farm list, the plans the lender reviews name the farm too.
 		await page.getByTestId('farm-list').getByText('Maple Coulee Farm').click();
 		await page.waitForURL(/\/farms\/[0-9a-f-]{36}$/);
 		await expect(page.getByText('Farm settings').count()).resolves.toBe(0);
-		const response = await page.goto(page.url() + '/settings');
+		const response = await openPath(page, page.url() + '/settings');
 		expect(response?.status()).toBe(403);
 		await expect(page.getByRole('heading', { level: 1 }).textContent()).resolves.toContain(
 			'may not do this'
@@ -93,7 +94,7 @@ describe('refusals in the browser', () => {
 		await context.clearCookies();
 		const page = await context.newPage();
 		await page.setViewportSize(viewports.phone);
-		await page.goto('/register');
+		await openPath(page, '/register');
 		await page.getByLabel('E-mail').fill('nobody-at-all');
 		await page.getByLabel('Password', { exact: true }).fill('short');
 		await page.getByRole('button', { name: 'Create account' }).click();

@@ -103,8 +103,18 @@ export async function useSession(context: BrowserContext, cookies: SessionCookie
 	if (cookies.length) await context.addCookies(cookies);
 }
 
+/**
+ * Opens `path` and waits until the page's scripts have taken it over (the root layout marks the page):
+ * a select changed or a box ticked before then would be lost, or would post the form without them.
+ */
+export async function openPath(page: Page, path: string) {
+	const response = await page.goto(path);
+	await page.locator('html[data-hydrated]').waitFor({ state: 'attached' });
+	return response;
+}
+
 export async function signInAs(page: Page, email: string, password = DEMO_PASSWORD) {
-	await page.goto('/signin');
+	await openPath(page, '/signin');
 	await page.getByLabel('E-mail', { exact: true }).fill(email);
 	await page.getByLabel('Password').fill(password);
 	await page.getByRole('button', { name: 'Sign in' }).click();

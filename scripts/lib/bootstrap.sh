@@ -33,12 +33,30 @@ ensure_node_modules() {
 
 random_secret() { node -e "process.stdout.write(require('crypto').randomBytes(${1:-32}).toString('base64url'))"; }
 
+# Whether something listens on 127.0.0.1:$1.
+port_taken() { (exec 3<>"/dev/tcp/127.0.0.1/$1") 2>/dev/null; }
+
+# The first port from $1 on where nothing listens, nor on that port + $2 when a second one goes with it
+# (the test server's): two checkouts' path numbers can meet, and the other's server may be running.
+free_port() {
+	local port=$1 paired=${2:-0}
+	while [ "$port" -lt $(($1 + 50)) ]; do
+		if ! port_taken "$port" && { [ "$paired" = 0 ] || ! port_taken $((port + paired)); }; then
+			echo "$port"
+			return
+		fi
+		port=$((port + 1))
+	done
+	echo "$1"
+}
+
 # .env holds this machine's secrets and ports; it is ignored by git and written on first start.
 ensure_env() {
 	if [ ! -f .env ]; then
 		say 'writing a development .env (secrets generated here, never committed)'
-		local pg_port=$((55000 + PATH_HASH % 900))
-		local app_port=$((3100 + PATH_HASH % 800))
+		local pg_port app_port
+		pg_port=$(free_port $((55000 + PATH_HASH % 900)))
+		app_port=$(free_port $((3100 + PATH_HASH % 800)) 1000)
 		local password
 		password=$(random_secret 18)
 		cat >.env <<ENV
@@ -72,7 +90,8 @@ ENV
 ensure_mail_env() {
 	if ! grep -q '^SMTP_PORT=' .env; then
 		say 'adding the local mail sink to .env'
-		local smtp_port=$((56000 + PATH_HASH % 900))
+		local smtp_port
+		smtp_port=$(free_port $((56000 + PATH_HASH % 900)) 1000)
 		cat >>.env <<ENV
 SMTP_HOST=127.0.0.1
 SMTP_PORT=$smtp_port

@@ -36,7 +36,7 @@ afterAll(() => release());
 
 describe('a Monte Carlo run on the risk page', () => {
 	it('the lender starts a run, sees its progress, then the result; the address brings it back', async () => {
-		const page = context.pages()[0] ?? (await context.newPage());
+		const page = await context.newPage();
 		await page.setViewportSize(viewports.desktop);
 		await openPath(page, riskPath);
 		const form = page.getByRole('form', { name: 'Monte Carlo settings' });

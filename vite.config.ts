@@ -6,7 +6,7 @@ import { configDefaults, defineConfig } from 'vitest/config';
 // sized for), integration and e2e against the one server and database: every file builds the data it
 // changes and counts only its own rows. Then, alone (sequence.groupOrder), the check that they left the
 // seeded demo as it was. No project keeps state in modules, so a worker's files share one module graph
-// (isolate: false) instead of loading the engine, mathjs and the db client again for each.
+// (isolate: false) instead of loading the engine, zod and the db client again for each.
 export default defineConfig({
 	plugins: [tailwindcss(), sveltekit()],
 	test: {

@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
+import { create, createUnitDependencies, unitDependencies } from 'mathjs';
 import { builtInCrops } from '../../src/lib/schemas/crops';
 import {
 	kgPerHaToSaleUnitsPerAcre,
@@ -12,6 +13,11 @@ import {
 	tonnesToSaleUnits,
 	hectaresPerAcre,
 	kgPerHaPerLbPerAcre,
+	kgPerLb,
+	feetPerMile,
+	inchesPerFoot,
+	metresPerFoot,
+	poundsPerTon,
 	litresPerGallon,
 	litresPerHaPerGallonPerAcre,
 	kwPerHp,
@@ -60,6 +66,34 @@ describe('bushels by crop weight', () => {
 });
 
 describe('metric conversions', () => {
+	it('gives every factor as mathjs’s units work it out', () => {
+		// mathjs (an independent units library) as the reference. Its built-in `acre` is rounded to
+		// 4046.86 m², so the check defines the acre of 43,560 ft² itself; its `hp` is 745.6998715386 W,
+		// rounded in the tenth figure from the exact 745.699871582… W, hence agreement to 1 in 10⁹.
+		const math = create({ unitDependencies, createUnitDependencies });
+		math.createUnit('acreExact', '43560 ft^2');
+		const factor = (from: string, to: string) => math.unit(1, from).toNumber(to);
+		const factors: [number, string, string][] = [
+			[squareFeetPerAcre, 'acreExact', 'ft^2'],
+			[feetPerMile, 'mi', 'ft'],
+			[inchesPerFoot, 'ft', 'inch'],
+			[poundsPerTon, 'ton', 'lb'],
+			[hectaresPerAcre, 'acreExact', 'hectare'],
+			[kgPerLb, 'lb', 'kg'],
+			[litresPerGallon, 'gal', 'L'],
+			[kwPerHp, 'hp', 'kW'],
+			[kmhPerMph, 'mi/h', 'km/h'],
+			[metresPerFoot, 'ft', 'm'],
+			[kgPerHaPerLbPerAcre, 'lb/acreExact', 'kg/hectare'],
+			[litresPerHaPerGallonPerAcre, 'gal/acreExact', 'L/hectare'],
+			[tonnesPerHaPerTonPerAcre, 'ton/acreExact', 'tonne/hectare']
+		];
+		for (const [ours, from, to] of factors) {
+			const reference = factor(from, to);
+			expect(Math.abs(ours - reference) / reference, `${from} in ${to}`).toBeLessThan(1e-9);
+		}
+	});
+
 	it('matches the NDSU metric conversion card', () => {
 		// NDSU metric card: 1 acre = 43,560 ft² = 0.40468564 ha
 		expect(squareFeetPerAcre).toBe(43560);

@@ -1,33 +1,31 @@
-import { create, createUnitDependencies, unitDependencies } from 'mathjs';
-
 /**
  * The one place for unit conversion. The engine works in US customary units; metric is for display
- * and entry at the edges. Factors come from mathjs units once, at load, so the engine's hot paths only
- * multiply.
+ * and entry at the edges. Every factor follows from the exact definitions below, so the engine's hot
+ * paths only multiply; the tests check each against mathjs's units. (Loading mathjs to work them out
+ * at start cost each process about a second here: its package builds every one of its functions when
+ * it is imported.)
  */
 
-// Only the unit functions: the full bundle costs far more to load than these few fixed factors need.
-const math = create({ unitDependencies, createUnitDependencies });
-// mathjs's built-in `acre` is rounded to 4046.86 m²; the acre is exactly 43,560 ft² (NDSU metric card).
-math.createUnit('acreExact', '43560 ft^2');
+// Exact by definition (NIST Handbook 44, Appendix C; the international yard and pound of 1959).
+export const metresPerFoot = 0.3048;
+export const kgPerLb = 0.45359237;
+export const feetPerMile = 5280;
+export const inchesPerFoot = 12;
+/** The US acre, 43,560 ft² (NDSU metric card). */
+export const squareFeetPerAcre = 43560;
+/** The short ton. */
+export const poundsPerTon = 2000;
+/** The US liquid gallon, 231 in³ = 3.785411784 L. */
+export const litresPerGallon = 3.785411784;
+/** Mechanical horsepower: 550 ft·lbf/s, with standard gravity 9.80665 m/s² (exact, CGPM 1901). */
+export const kwPerHp = (550 * metresPerFoot * kgPerLb * 9.80665) / 1000;
 
-function factor(from: string, to: string): number {
-	return math.unit(1, from).toNumber(to);
-}
-
-export const squareFeetPerAcre = factor('acreExact', 'ft^2');
-export const feetPerMile = factor('mi', 'ft');
-export const inchesPerFoot = factor('ft', 'inch');
-export const poundsPerTon = factor('ton', 'lb');
-export const hectaresPerAcre = factor('acreExact', 'hectare');
-export const kgPerLb = factor('lb', 'kg');
-export const litresPerGallon = factor('gal', 'L');
-export const kwPerHp = factor('hp', 'kW');
-export const kmhPerMph = factor('mi/h', 'km/h');
-export const metresPerFoot = factor('ft', 'm');
-export const kgPerHaPerLbPerAcre = factor('lb/acreExact', 'kg/hectare');
-export const litresPerHaPerGallonPerAcre = factor('gal/acreExact', 'L/hectare');
-export const tonnesPerHaPerTonPerAcre = factor('ton/acreExact', 'tonne/hectare');
+const squareMetresPerHectare = 10_000;
+export const hectaresPerAcre = (squareFeetPerAcre * metresPerFoot ** 2) / squareMetresPerHectare;
+export const kmhPerMph = (feetPerMile * metresPerFoot) / 1000;
+export const kgPerHaPerLbPerAcre = kgPerLb / hectaresPerAcre;
+export const litresPerHaPerGallonPerAcre = litresPerGallon / hectaresPerAcre;
+export const tonnesPerHaPerTonPerAcre = (poundsPerTon * kgPerLb) / 1000 / hectaresPerAcre;
 
 export { daysPerAnimalUnitMonth, lbLiveWeightPerAnimalUnit } from './animal-units';
 

@@ -1,7 +1,7 @@
 // Monte Carlo of crop prices and yields: how a plan's net return spreads when each crop's price and
 // yield move from year to year, and how often the plan beats the reference plan on the same draws.
 import { randomLcg, randomNormal } from 'd3-random';
-import { mean, quantileSeq, std } from 'mathjs';
+import { deviation, mean, quantile } from 'd3-array';
 import type { PlanDocument } from '../../schemas/plan-file';
 import { feedingYear } from '../forage';
 import { evaluatePlan } from '../index';
@@ -170,11 +170,14 @@ const atLeastZero = (x: number) => (x > 0 ? x : 0);
 
 const histogramBins = 30;
 
+/** Percentiles interpolated between order statistics (R's default, type 7), and the sample (n − 1) SD. */
 function spread(values: number[]): Spread {
-	const [p5, p25, p50, p75, p95] = quantileSeq(values, [0.05, 0.25, 0.5, 0.75, 0.95]) as number[];
+	const [p5, p25, p50, p75, p95] = [0.05, 0.25, 0.5, 0.75, 0.95].map(
+		(p) => quantile(values, p) ?? 0
+	);
 	return {
-		meanUsd: Number(mean(values)),
-		standardDeviationUsd: values.length > 1 ? Number(std(values)) : 0,
+		meanUsd: mean(values) ?? 0,
+		standardDeviationUsd: deviation(values) ?? 0,
 		percentilesUsd: { p5, p25, p50, p75, p95 },
 		lossProbability: values.filter((v) => v < 0).length / values.length
 	};

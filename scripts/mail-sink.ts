@@ -1,6 +1,6 @@
 // The local SMTP sink for development and tests: accepts every message on 127.0.0.1 and stores it in
 // PostgreSQL (captured_mail), where a site admin reads it at /admin/mail or GET /api/v1/admin/mail.
-// Started by `npm start` (scripts/start.sh) and by the tests (tests/support/global-setup.ts):
+// Started by `npm start` (scripts/start.sh) and by the tests (tests/support/test-servers.ts):
 //   tsx scripts/mail-sink.ts --port N [--parent PID]
 // It stops on SIGINT/SIGTERM, and by itself once the parent process (PID) has gone.
 import './db/load-env';

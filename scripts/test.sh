@@ -26,8 +26,15 @@ ensure_build
 say 'tests'
 report=test-results/vitest.json
 rm -f "$report" # the closing line must come from this run's report, never an older one
+# The app and the mail sink start now, while vitest loads (about 8 s, nearly all on one core); the
+# tests' global set-up waits for them (tests/support/test-servers.ts).
+node --import tsx tests/support/test-servers.ts --parent $$ &
+servers=$!
 status=0
-npx vitest run --reporter=default --reporter=json --outputFile.json="$report" "$@" || status=$?
+TEST_SERVERS_STARTED=1 npx vitest run --reporter=default --reporter=json --outputFile.json="$report" "$@" ||
+	status=$?
+kill "$servers" 2>/dev/null || true
+wait "$servers" 2>/dev/null || true
 # One plain closing line for CI: how many passed and failed.
 if [ ! -f "$report" ]; then
 	echo "vitest: no report was written to $report (vitest exited with status $status)"

@@ -1,4 +1,4 @@
-/** Where the built app runs during integration and end-to-end tests (started by global-setup.ts). */
+/** Where the built app runs during integration and end-to-end tests (started by test-servers.ts). */
 export const baseUrl = `http://127.0.0.1:${process.env.TEST_PORT}`;
 
 export const DEMO_PASSWORD = 'furrowcast-demo';

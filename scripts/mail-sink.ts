@@ -7,6 +7,7 @@ import './db/load-env';
 import { parseArgs } from 'node:util';
 import { simpleParser, type AddressObject } from 'mailparser';
 import { SMTPServer } from 'smtp-server';
+import { stopWithParent } from './lib/stop-with-parent';
 import { createDb } from '../src/lib/server/db/client';
 import { capturedMail } from '../src/lib/server/db/schema';
 
@@ -91,14 +92,4 @@ server.listen(port, '127.0.0.1', () => {
 	console.log(`mail sink: listening on 127.0.0.1:${port}`);
 });
 
-// Stop with the parent: a sink must never outlive the app or the test run that started it.
-const parent = values.parent ? Number(values.parent) : undefined;
-if (parent) {
-	setInterval(() => {
-		try {
-			process.kill(parent, 0);
-		} catch {
-			void stop();
-		}
-	}, 1000).unref();
-}
+stopWithParent(values.parent ? Number(values.parent) : undefined, () => void stop());

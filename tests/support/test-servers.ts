@@ -9,6 +9,7 @@ import { existsSync } from 'node:fs';
 import { connect } from 'node:net';
 import { pathToFileURL } from 'node:url';
 import { parseArgs } from 'node:util';
+import { stopWithParent } from '../../scripts/lib/stop-with-parent';
 import { baseUrl } from './server';
 
 async function appAnswers(): Promise<boolean> {
@@ -141,13 +142,6 @@ if (import.meta.url === pathToFileURL(process.argv[1] ?? '').href) {
 	};
 	process.on('SIGINT', stopAndExit);
 	process.on('SIGTERM', stopAndExit);
-	const parent = values.parent ? Number(values.parent) : undefined;
-	setInterval(() => {
-		try {
-			if (parent) process.kill(parent, 0);
-		} catch {
-			stopAndExit();
-		}
-	}, 1000);
+	stopWithParent(values.parent ? Number(values.parent) : undefined, stopAndExit);
 	await servers;
 }

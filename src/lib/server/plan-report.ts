@@ -8,7 +8,7 @@ import {
 	type PlanSummary
 } from '$lib/engine';
 import type { PlanDocument } from '$lib/schemas/plan-file';
-import type { Db, Tx } from '$lib/server/db/client';
+import { readAll, type Db, type Tx } from '$lib/server/db/client';
 import { findReferencePlan, type PlanRow } from '$lib/server/db/plans';
 import type { farms } from '$lib/server/db/schema';
 import { checkDraft, findDraft } from '$lib/server/plans';
@@ -39,14 +39,14 @@ export async function evaluateStoredPlan(
 ): Promise<StoredPlanEvaluation> {
 	const reference =
 		referencePlan === undefined ? await findReferencePlan(db, farm.id) : referencePlan;
-	const [draft, referenceDraft] = await Promise.all([
-		findDraft(db, plan, version),
-		reference && reference.id !== plan.id ? findDraft(db, reference) : undefined
+	const [draft, referenceDraft] = await readAll(db, [
+		() => findDraft(db, plan, version),
+		() => (reference && reference.id !== plan.id ? findDraft(db, reference) : undefined)
 	]);
 	if (!draft) return { ok: false, message: `This plan has no version ${version}.` };
-	const [checked, referenceChecked] = await Promise.all([
-		checkDraft(db, farm, draft),
-		referenceDraft ? checkDraft(db, farm, referenceDraft) : undefined
+	const [checked, referenceChecked] = await readAll(db, [
+		() => checkDraft(db, farm, draft),
+		() => (referenceDraft ? checkDraft(db, farm, referenceDraft) : undefined)
 	]);
 	if (!checked.ok) {
 		return {

@@ -14,7 +14,7 @@ import type { FieldIssue } from '$lib/schemas/issues';
 import { parsePlanDocument, type PlanDocument } from '$lib/schemas/plan-file';
 import type { PlanDraft, ResultsQuery } from '$lib/schemas/plans';
 import { invalidInput, readJson } from '$lib/server/api';
-import type { Db, Tx } from '$lib/server/db/client';
+import { readAll, type Db, type Tx } from '$lib/server/db/client';
 import { findIdsByKey } from '$lib/server/db/keys';
 import {
 	draftOfVersion,
@@ -50,25 +50,28 @@ export async function versionContent(
 	draft: PlanDraft
 ): Promise<PlanVersionContent> {
 	const { fieldRotations, horizon, assumptions, adjustments } = draft.plan;
-	const [fieldIds, rotationIds, practiceIds] = await Promise.all([
-		findIdsByKey(
-			db,
-			fields,
-			farmId,
-			fieldRotations.map((a) => a.fieldId)
-		),
-		findIdsByKey(
-			db,
-			rotations,
-			farmId,
-			fieldRotations.map((a) => a.rotationId)
-		),
-		findIdsByKey(
-			db,
-			cropPractices,
-			farmId,
-			adjustments.flatMap((a) => (a.practiceId === undefined ? [] : [a.practiceId]))
-		)
+	const [fieldIds, rotationIds, practiceIds] = await readAll(db, [
+		() =>
+			findIdsByKey(
+				db,
+				fields,
+				farmId,
+				fieldRotations.map((a) => a.fieldId)
+			),
+		() =>
+			findIdsByKey(
+				db,
+				rotations,
+				farmId,
+				fieldRotations.map((a) => a.rotationId)
+			),
+		() =>
+			findIdsByKey(
+				db,
+				cropPractices,
+				farmId,
+				adjustments.flatMap((a) => (a.practiceId === undefined ? [] : [a.practiceId]))
+			)
 	]);
 	return {
 		startYear: horizon.startYear,
@@ -201,9 +204,9 @@ export async function draftResults(
 		year
 	}: { against?: PlanDraft } & Pick<ResultsQuery, 'detail' | 'field' | 'year'>
 ): Promise<ResultsAnswer> {
-	const [plan, reference] = await Promise.all([
-		checkDraft(db, farm, draft),
-		against ? checkDraft(db, farm, against) : undefined
+	const [plan, reference] = await readAll(db, [
+		() => checkDraft(db, farm, draft),
+		() => (against ? checkDraft(db, farm, against) : undefined)
 	]);
 	if (!plan.ok) return refused('The plan is not valid.', plan.issues);
 	if (reference && !reference.ok) {

@@ -17,7 +17,7 @@ import {
 import type { PracticeRow, PracticeToSave } from '$lib/server/db/crop-practices';
 import { listOperationChoices, listPractices } from '$lib/server/db/crop-practices';
 import { listCropsWithBuiltIns } from '$lib/server/db/crops';
-import type { Db, Tx } from '$lib/server/db/client';
+import { readAll, type Db, type Tx } from '$lib/server/db/client';
 
 const quoted = (names: string[]) => names.map((name) => `"${name}"`).join(', ');
 
@@ -46,9 +46,9 @@ export function invalidIssues(issues: FieldIssue[]) {
 
 /** What a practice may name on this farm: its crops (built-in and own) and operations by key. */
 export async function loadPracticeReferences(db: Db | Tx, farmId: string) {
-	const [crops, operations] = await Promise.all([
-		listCropsWithBuiltIns(db, farmId),
-		listOperationChoices(db, farmId)
+	const [crops, operations] = await readAll(db, [
+		() => listCropsWithBuiltIns(db, farmId),
+		() => listOperationChoices(db, farmId)
 	]);
 	return {
 		crops: new Map<string, CropDefinition>(crops.map((crop) => [crop.id, crop])),
@@ -154,9 +154,9 @@ export function rotationFromFormOrErrors(
 
 /** What the practice form offers: the farm's crops and its catalogue of field operations. */
 export async function loadPracticeFormChoices(db: Db | Tx, farmId: string) {
-	const [crops, operations] = await Promise.all([
-		listCropsWithBuiltIns(db, farmId),
-		listOperationChoices(db, farmId)
+	const [crops, operations] = await readAll(db, [
+		() => listCropsWithBuiltIns(db, farmId),
+		() => listOperationChoices(db, farmId)
 	]);
 	return {
 		crops: crops.map(({ id, name, soldBy, legume }) => ({ id, name, soldBy, legume })),
@@ -193,9 +193,9 @@ export function rotationYear(
 }
 
 export async function loadRotationChoices(db: Db | Tx, farmId: string) {
-	const [practices, crops] = await Promise.all([
-		listPractices(db, farmId),
-		listCropsWithBuiltIns(db, farmId)
+	const [practices, crops] = await readAll(db, [
+		() => listPractices(db, farmId),
+		() => listCropsWithBuiltIns(db, farmId)
 	]);
 	const cropById = new Map(crops.map((crop) => [crop.id, crop]));
 	return {

@@ -11,7 +11,7 @@ import {
 	type PriceSetForm,
 	type PriceSetFormLayout
 } from '$lib/schemas/price-sets';
-import type { Db, Tx } from './db/client';
+import { readAll, type Db, type Tx } from './db/client';
 import { listCropsWithBuiltIns } from './db/crops';
 import { listOperationsToPrice, listSeedIdsSown } from './db/price-sets';
 import { unknownIdIssues } from './prices';
@@ -39,10 +39,10 @@ export async function findPriceFormParts(
 	stored: PriceSet | null,
 	seedRows?: number
 ): Promise<PriceFormParts> {
-	const [crops, operations, sown] = await Promise.all([
-		listCropsWithBuiltIns(db, farmId),
-		listOperationsToPrice(db, farmId),
-		listSeedIdsSown(db, farmId)
+	const [crops, operations, sown] = await readAll(db, [
+		() => listCropsWithBuiltIns(db, farmId),
+		() => listOperationsToPrice(db, farmId),
+		() => listSeedIdsSown(db, farmId)
 	]);
 	const rated = new Set(Object.keys(stored?.customRatesUsdPerAcre ?? {}));
 	const priced = operations.filter((op) => op.by === 'custom' || rated.has(op.key));

@@ -2,7 +2,7 @@
 import { json } from '@sveltejs/kit';
 import { toFieldIssues, type FieldIssue } from '$lib/schemas/issues';
 import { priceSetBodySchema, type PriceSet } from '$lib/schemas/price-sets';
-import type { Db, Tx } from './db/client';
+import { readAll, type Db, type Tx } from './db/client';
 import { listCropsWithBuiltIns } from './db/crops';
 import { createPriceSets, listOperationsToPrice, type PriceSetRow } from './db/price-sets';
 
@@ -31,9 +31,9 @@ export function priceSetInUseMessage(year: number, planNames: readonly string[])
 
 /** The crop and operation ids a set may price: the built-in crops, the farm's own, its operations. */
 export async function findPriceableIds(db: Db | Tx, farmId: string) {
-	const [crops, operations] = await Promise.all([
-		listCropsWithBuiltIns(db, farmId),
-		listOperationsToPrice(db, farmId)
+	const [crops, operations] = await readAll(db, [
+		() => listCropsWithBuiltIns(db, farmId),
+		() => listOperationsToPrice(db, farmId)
 	]);
 	return {
 		cropIds: new Set(crops.map((crop) => crop.id)),

@@ -1,5 +1,5 @@
 import { and, desc, eq, lt, sql } from 'drizzle-orm';
-import type { Db, Tx } from './client';
+import { readAll, type Db, type Tx } from './client';
 import { auditLog, users, type AuditAction, type AuditDetails } from './schema';
 
 /** An audit entry: an action with a detail of its own shape, given exactly when it has one. */
@@ -57,20 +57,22 @@ export async function listAuditEntries(db: Db | Tx, farmId: string, filter: Audi
 
 /** Who appears in the farm's record and which plans it names (by their last recorded name), to filter by. */
 export async function listAuditFilters(db: Db | Tx, farmId: string) {
-	const [people, plans] = await Promise.all([
-		db
-			.selectDistinct({ id: users.id, name: users.name, email: users.email })
-			.from(auditLog)
-			.innerJoin(users, eq(users.id, auditLog.userId))
-			.where(eq(auditLog.farmId, farmId)),
-		db
-			.select({
-				id: sql<string>`${auditLog.detail}->>'planId'`,
-				name: sql<string>`(array_agg(${auditLog.detail}->>'name' order by ${auditLog.id} desc))[1]`
-			})
-			.from(auditLog)
-			.where(and(eq(auditLog.farmId, farmId), sql`${auditLog.detail} ? 'planId'`))
-			.groupBy(sql`${auditLog.detail}->>'planId'`)
+	const [people, plans] = await readAll(db, [
+		() =>
+			db
+				.selectDistinct({ id: users.id, name: users.name, email: users.email })
+				.from(auditLog)
+				.innerJoin(users, eq(users.id, auditLog.userId))
+				.where(eq(auditLog.farmId, farmId)),
+		() =>
+			db
+				.select({
+					id: sql<string>`${auditLog.detail}->>'planId'`,
+					name: sql<string>`(array_agg(${auditLog.detail}->>'name' order by ${auditLog.id} desc))[1]`
+				})
+				.from(auditLog)
+				.where(and(eq(auditLog.farmId, farmId), sql`${auditLog.detail} ? 'planId'`))
+				.groupBy(sql`${auditLog.detail}->>'planId'`)
 	]);
 	return {
 		people: people

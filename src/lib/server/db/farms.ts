@@ -2,7 +2,7 @@ import { and, count, eq, inArray, sum } from 'drizzle-orm';
 import type { FarmRole } from '$lib/roles';
 import type { FarmSettings } from '$lib/schemas/farm';
 import { insertAuditEntry } from './audit';
-import type { Db, Tx } from './client';
+import { readAll, type Db, type Tx } from './client';
 import { findFamilyHoursByMonth, lockFarm } from './people';
 import {
 	cropPractices,
@@ -118,25 +118,28 @@ export async function getFarmSetup(db: Db | Tx, farmId: string) {
 		practiceRows,
 		rotationRows,
 		planRows
-	] = await Promise.all([
-		db
-			.select({ n: count(), acres: sum(fields.acres) })
-			.from(fields)
-			.where(eq(fields.farmId, farmId)),
-		db
-			.select({ n: count(), head: sum(herds.head) })
-			.from(herds)
-			.where(eq(herds.farmId, farmId)),
-		db.select({ n: count() }).from(people).where(eq(people.farmId, farmId)),
-		db.select({ n: count() }).from(priceSets).where(eq(priceSets.farmId, farmId)),
-		db.select({ n: count() }).from(fieldOperations).where(eq(fieldOperations.farmId, farmId)),
-		db.select({ n: count() }).from(cropPractices).where(eq(cropPractices.farmId, farmId)),
-		db.select({ n: count() }).from(rotations).where(eq(rotations.farmId, farmId)),
-		db
-			.select({ n: count(), name: plans.name, isReference: plans.isReference })
-			.from(plans)
-			.where(eq(plans.farmId, farmId))
-			.groupBy(plans.name, plans.isReference)
+	] = await readAll(db, [
+		() =>
+			db
+				.select({ n: count(), acres: sum(fields.acres) })
+				.from(fields)
+				.where(eq(fields.farmId, farmId)),
+		() =>
+			db
+				.select({ n: count(), head: sum(herds.head) })
+				.from(herds)
+				.where(eq(herds.farmId, farmId)),
+		() => db.select({ n: count() }).from(people).where(eq(people.farmId, farmId)),
+		() => db.select({ n: count() }).from(priceSets).where(eq(priceSets.farmId, farmId)),
+		() => db.select({ n: count() }).from(fieldOperations).where(eq(fieldOperations.farmId, farmId)),
+		() => db.select({ n: count() }).from(cropPractices).where(eq(cropPractices.farmId, farmId)),
+		() => db.select({ n: count() }).from(rotations).where(eq(rotations.farmId, farmId)),
+		() =>
+			db
+				.select({ n: count(), name: plans.name, isReference: plans.isReference })
+				.from(plans)
+				.where(eq(plans.farmId, farmId))
+				.groupBy(plans.name, plans.isReference)
 	]);
 	return {
 		fields: { count: fieldRows[0].n, acres: Number(fieldRows[0].acres ?? 0) },

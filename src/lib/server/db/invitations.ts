@@ -10,7 +10,7 @@ import {
 	type InvitationStatus
 } from '$lib/server/invitations';
 import { insertAuditEntry } from './audit';
-import type { Db, Tx } from './client';
+import { readAll, type Db, type Tx } from './client';
 import { lockFarm } from './people';
 import { farms, invitations, memberships, users } from './schema';
 
@@ -85,24 +85,26 @@ export async function createInvitation(
 	return db.transaction(async (tx) => {
 		await lockFarm(tx, input.farmId);
 		const now = new Date();
-		const [member, waiting] = await Promise.all([
-			tx
-				.select({ userId: memberships.userId })
-				.from(memberships)
-				.innerJoin(users, eq(users.id, memberships.userId))
-				.where(and(eq(memberships.farmId, input.farmId), eq(users.email, input.email))),
-			tx
-				.select({ id: invitations.id })
-				.from(invitations)
-				.where(
-					and(
-						eq(invitations.farmId, input.farmId),
-						eq(invitations.email, input.email),
-						isNull(invitations.acceptedAt),
-						isNull(invitations.revokedAt),
-						gt(invitations.expiresAt, now)
+		const [member, waiting] = await readAll(tx, [
+			() =>
+				tx
+					.select({ userId: memberships.userId })
+					.from(memberships)
+					.innerJoin(users, eq(users.id, memberships.userId))
+					.where(and(eq(memberships.farmId, input.farmId), eq(users.email, input.email))),
+			() =>
+				tx
+					.select({ id: invitations.id })
+					.from(invitations)
+					.where(
+						and(
+							eq(invitations.farmId, input.farmId),
+							eq(invitations.email, input.email),
+							isNull(invitations.acceptedAt),
+							isNull(invitations.revokedAt),
+							gt(invitations.expiresAt, now)
+						)
 					)
-				)
 		]);
 		if (member.length) return { ok: false, refused: 'member' } as const;
 		if (waiting.length) return { ok: false, refused: 'pending' } as const;

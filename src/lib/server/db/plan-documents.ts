@@ -5,7 +5,7 @@ import {
 	type PlanDocument,
 	type PlanDocumentInput
 } from '$lib/schemas/plan-file';
-import type { Db, Tx } from './client';
+import { readAll, type Db, type Tx } from './client';
 import { exportCropPractices, insertCropPractices } from './crop-practices';
 import { exportCrops, insertCrops } from './crops';
 import { farmSettingsOf } from './farms';
@@ -76,15 +76,16 @@ export async function draftPlanDocument(
 ): Promise<PlanDocumentInput> {
 	const { startYear, years } = draft.plan.horizon;
 	const planYears = Array.from({ length: years }, (_, i) => startYear + i);
-	const [crops, fieldRows, people, operations, practices, rotations, priceSets] = await Promise.all(
+	const [crops, fieldRows, people, operations, practices, rotations, priceSets] = await readAll(
+		db,
 		[
-			exportCrops(db, farm.id),
-			listFields(db, farm.id),
-			exportPeople(db, farm.id),
-			exportFieldOperations(db, farm.id),
-			exportCropPractices(db, farm.id),
-			exportRotations(db, farm.id),
-			exportPriceSets(db, farm.id, planYears)
+			() => exportCrops(db, farm.id),
+			() => listFields(db, farm.id),
+			() => exportPeople(db, farm.id),
+			() => exportFieldOperations(db, farm.id),
+			() => exportCropPractices(db, farm.id),
+			() => exportRotations(db, farm.id),
+			() => exportPriceSets(db, farm.id, planYears)
 		]
 	);
 	const fieldByKey = new Map(fieldRows.map((field) => [field.key, field]));

@@ -2,7 +2,7 @@ import { and, asc, desc, eq, inArray, sql } from 'drizzle-orm';
 import type { Herd, PlanAdjustment } from '$lib/schemas/plan-file';
 import type { StoredAdjustment } from './schema/plans';
 import { insertAuditEntry } from './audit';
-import type { Db, Tx } from './client';
+import { readAll, type Db, type Tx } from './client';
 import { isRowId } from './keys';
 import { lockFarm } from './people';
 import { cropPractices, fields, planFieldAssignments, plans, planVersions, users } from './schema';
@@ -77,17 +77,19 @@ async function adjustmentsByKey(
 	if (!stored.length) return [];
 	const ids = (pick: (a: StoredAdjustment) => string | undefined) =>
 		stored.map(pick).filter((id): id is string => id !== undefined);
-	const [fieldRows, practiceRows] = await Promise.all([
-		keysOf(
-			db,
-			fields,
-			ids((a) => a.fieldRowId)
-		),
-		keysOf(
-			db,
-			cropPractices,
-			ids((a) => a.practiceRowId)
-		)
+	const [fieldRows, practiceRows] = await readAll(db, [
+		() =>
+			keysOf(
+				db,
+				fields,
+				ids((a) => a.fieldRowId)
+			),
+		() =>
+			keysOf(
+				db,
+				cropPractices,
+				ids((a) => a.practiceRowId)
+			)
 	]);
 	// A field or practice deleted since must not widen the change to every one: it names a key that no
 	// farm part has, which the plan file's checks refuse.

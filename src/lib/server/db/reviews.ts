@@ -9,7 +9,7 @@ import {
 } from '$lib/review-state';
 import type { ReviewDecision } from '$lib/schemas/reviews';
 import { insertAuditEntry } from './audit';
-import type { Db, Tx } from './client';
+import { readAll, type Db, type Tx } from './client';
 import { comments, memberships, planShares, planVersions, reviews, users } from './schema';
 
 /** How a person is named in the review history: their name, else their e-mail. */
@@ -65,22 +65,23 @@ export interface ReviewEntry {
 /** Every share, comment and decision on every version of a plan, oldest first. */
 export async function listReviewEntries(db: Db | Tx, planId: string): Promise<ReviewEntry[]> {
 	const ofPlan = eq(planVersions.planId, planId);
-	const [shares, commentRows, decisions] = await Promise.all([
-		shareRows(db, ofPlan),
-		db
-			.select({
-				id: comments.id,
-				version: planVersions.version,
-				name: users.name,
-				email: users.email,
-				text: comments.body,
-				at: comments.createdAt
-			})
-			.from(comments)
-			.innerJoin(planVersions, eq(planVersions.id, comments.planVersionId))
-			.leftJoin(users, eq(users.id, comments.authorId))
-			.where(ofPlan),
-		decisionRows(db, ofPlan)
+	const [shares, commentRows, decisions] = await readAll(db, [
+		() => shareRows(db, ofPlan),
+		() =>
+			db
+				.select({
+					id: comments.id,
+					version: planVersions.version,
+					name: users.name,
+					email: users.email,
+					text: comments.body,
+					at: comments.createdAt
+				})
+				.from(comments)
+				.innerJoin(planVersions, eq(planVersions.id, comments.planVersionId))
+				.leftJoin(users, eq(users.id, comments.authorId))
+				.where(ofPlan),
+		() => decisionRows(db, ofPlan)
 	]);
 	const entry =
 		(kind: (row: { decision?: ReviewDecision }) => ReviewEntry['kind']) =>
@@ -129,9 +130,9 @@ export async function reviewStatesOfPlans(db: Db | Tx, planIds: string[]) {
 	const byPlan = new Map<string, Map<number, VersionReviewState>>();
 	if (!planIds.length) return byPlan;
 	const ofPlans = inArray(planVersions.planId, planIds);
-	const [shares, decisions] = await Promise.all([
-		shareRows(db, ofPlans),
-		decisionRows(db, ofPlans)
+	const [shares, decisions] = await readAll(db, [
+		() => shareRows(db, ofPlans),
+		() => decisionRows(db, ofPlans)
 	]);
 	const events = new Map<string, Map<number, ReviewEvent[]>>();
 	const add = (planId: string, version: number, event: ReviewEvent) => {
@@ -170,15 +171,17 @@ async function lockVersion(tx: Tx, planId: string, version: number) {
 		.where(and(eq(planVersions.planId, planId), eq(planVersions.version, version)))
 		.for('update');
 	if (!row) return undefined;
-	const [shareRows, reviewRows] = await Promise.all([
-		tx
-			.select({ at: planShares.createdAt })
-			.from(planShares)
-			.where(eq(planShares.planVersionId, row.id)),
-		tx
-			.select({ decision: reviews.decision, at: reviews.createdAt })
-			.from(reviews)
-			.where(eq(reviews.planVersionId, row.id))
+	const [shareRows, reviewRows] = await readAll(tx, [
+		() =>
+			tx
+				.select({ at: planShares.createdAt })
+				.from(planShares)
+				.where(eq(planShares.planVersionId, row.id)),
+		() =>
+			tx
+				.select({ decision: reviews.decision, at: reviews.createdAt })
+				.from(reviews)
+				.where(eq(reviews.planVersionId, row.id))
 	]);
 	const state = versionReviewState([
 		...shareRows.map((r) => ({ kind: 'share' as const, by: '', at: r.at })),

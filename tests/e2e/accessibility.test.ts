@@ -1,8 +1,9 @@
 // Accessibility rules (WCAG 2.1 A and AA, as axe-core checks them) on the main screens.
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { afterAll, beforeAll, describe, expect, it, onTestFinished } from 'vitest';
 import type { BrowserContext, Page } from 'playwright-core';
 import {
 	axeViolations,
+	freshPage,
 	openPath,
 	sessionCookies,
 	sharedBrowser,
@@ -81,22 +82,27 @@ const viewers: [string, () => typeof owner][] = [
 // most (the editor and the optimiser, which drop their forms); axe is the slowest part of the suite.
 const lenderScreens = new Set(['reference plan editor', 'optimiser page']);
 
-/** How many of the page's requests wait for their answer, from now on. */
+/**
+ * How many of the page's requests wait for their answer, from now until the test ends (the page is
+ * the worker's one page, which the next test takes too).
+ */
 function requestsWaiting(page: Page) {
 	let waiting = 0;
-	page.on('request', () => waiting++);
-	page.on('requestfinished', () => waiting--);
-	page.on('requestfailed', () => waiting--);
+	const sent = () => waiting++;
+	const answered = () => waiting--;
+	page.on('request', sent).on('requestfinished', answered).on('requestfailed', answered);
+	onTestFinished(() => {
+		page.off('request', sent).off('requestfinished', answered).off('requestfailed', answered);
+	});
 	return () => waiting;
 }
 
 describe('accessibility', () => {
 	it.each(screens)('the %s has no WCAG A/AA violations', async (_name, path) => {
 		await useSession(context, owner);
-		const page = await context.newPage();
+		const page = await freshPage(context);
 		await openPath(page, path());
 		expect(await axeViolations(page)).toEqual([]);
-		await page.close();
 	});
 
 	it.each(
@@ -109,7 +115,7 @@ describe('accessibility', () => {
 		'the %s, as the %s, has no WCAG A/AA violations',
 		async (_name, _who, path, { shows, atLeast }, cookies) => {
 			await useSession(context, cookies());
-			const page = await context.newPage();
+			const page = await freshPage(context);
 			const waiting = requestsWaiting(page);
 			await openPath(page, path());
 			await expect.poll(() => page.locator(shows).count()).toBeGreaterThanOrEqual(atLeast);
@@ -117,15 +123,13 @@ describe('accessibility', () => {
 			// the page sent as it opened, so once none waits, the page is as it stays.
 			await expect.poll(waiting).toBe(0);
 			expect(await axeViolations(page)).toEqual([]);
-			await page.close();
 		}
 	);
 
 	it('the sign-in page has none, signed out', async () => {
 		await useSession(context, []);
-		const page = await context.newPage();
+		const page = await freshPage(context);
 		await openPath(page, '/signin');
 		expect(await axeViolations(page)).toEqual([]);
-		await page.close();
 	});
 });

@@ -4,6 +4,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { BrowserContext, Page } from 'playwright-core';
 import {
 	checkBothWidths,
+	freshPage,
 	openPath,
 	screenshot,
 	sharedBrowser,
@@ -19,7 +20,7 @@ let farmPath: string;
 beforeAll(async () => {
 	({ context, release } = await sharedBrowser());
 	// A new account and farm of the test's own, made through the forms; the demo farm is only read.
-	const page = await context.newPage();
+	const page = await freshPage(context);
 	await openPath(page, '/register');
 	await page.getByLabel('Your name').fill('Fields Tester');
 	await page
@@ -35,7 +36,6 @@ beforeAll(async () => {
 	await page.getByRole('button', { name: 'Create farm' }).click();
 	await page.waitForURL(/\/farms\/[0-9a-f-]{36}$/);
 	farmPath = new URL(page.url()).pathname;
-	await page.close();
 });
 afterAll(() => release());
 
@@ -48,7 +48,7 @@ async function addField(page: Page, name: string, acres: string, key: string) {
 
 describe('an owner', () => {
 	it('adds a field through the form; a slip is shown as soon as the user leaves the input', async () => {
-		const page = await context.newPage();
+		const page = await freshPage(context);
 		await openPath(page, `${farmPath}/fields`);
 		await page.getByLabel('Field name').fill('Creek Bottom');
 		await page.getByLabel('Area (ac)').fill('-3');
@@ -77,11 +77,10 @@ describe('an owner', () => {
 		await expect(page.getByTestId('field-totals').textContent()).resolves.toMatch(
 			/3 fields\s*140\.75/
 		);
-		await page.close();
 	});
 
 	it('sorts the table by a heading, and back', async () => {
-		const page = await context.newPage();
+		const page = await freshPage(context);
 		await openPath(page, `${farmPath}/fields`);
 		await page.locator('a[data-sort="area"]').click();
 		await page.waitForURL(/sort=area&dir=asc/);
@@ -99,11 +98,10 @@ describe('an owner', () => {
 			'Schoolhouse Forty',
 			'Creek Bottom'
 		]);
-		await page.close();
 	});
 
 	it('uploads fields from a CSV: a bad row imports nothing and is shown; fixed, all rows import', async () => {
-		const page = await context.newPage();
+		const page = await freshPage(context);
 		await openPath(page, `${farmPath}/fields`);
 		await page.getByRole('link', { name: 'Upload fields from a CSV file' }).click();
 		await page.waitForURL(/\/upload\/fields$/);
@@ -137,11 +135,10 @@ describe('an owner', () => {
 		await expect(page.getByTestId('tenure-summary').textContent()).resolves.toMatch(
 			/151 ac\s*owned · 80 ac\s*cash-rented, \$19,200 rent a\s+year/
 		);
-		await page.close();
 	});
 
 	it('adds a crop of the farm’s own', async () => {
-		const page = await context.newPage();
+		const page = await freshPage(context);
 		await openPath(page, `${farmPath}/crops`);
 		await page.getByLabel('Crop name').fill('Grain sorghum');
 		await page.getByLabel('Sold by the').selectOption('cwt');
@@ -150,14 +147,13 @@ describe('an owner', () => {
 		const row = page.locator('tr[data-crop="grain-sorghum"]');
 		await expect(row.locator('td').nth(2).textContent()).resolves.toBe('100');
 		await expect(page.locator('tr[data-crop="corn"]').textContent()).resolves.toContain('built in');
-		await page.close();
 	});
 });
 
 describe('a reviewer (the demo lender)', () => {
 	it('sees the demo farm’s fields with no edit controls', async () => {
 		await context.clearCookies();
-		const page = await context.newPage();
+		const page = await freshPage(context);
 		await signInAs(page, demoUsers.lender);
 		await page.waitForURL('**/farms');
 		await page.getByTestId('farm-list').getByText('Maple Coulee Farm').click();
@@ -170,7 +166,6 @@ describe('a reviewer (the demo lender)', () => {
 		await expect(page.locator('main form').count()).resolves.toBe(0);
 		await openPath(page, page.url().replace(/fields$/, 'crops'));
 		await expect(page.getByRole('heading', { name: 'Add a crop' }).count()).resolves.toBe(0);
-		await page.close();
 		await context.clearCookies();
 	});
 });
@@ -178,7 +173,7 @@ describe('a reviewer (the demo lender)', () => {
 // Each page loaded once at phone width and looked at in both widths by resizing it.
 describe('at phone and desktop width', () => {
 	it('the owner’s fields, field, delete and crops pages fit, with big enough targets', async () => {
-		const page = await context.newPage();
+		const page = await freshPage(context);
 		await page.setViewportSize(viewports.phone);
 		// An owner of its own, so the screenshots show the same two fields whatever ran before.
 		await context.clearCookies();
@@ -233,13 +228,12 @@ describe('at phone and desktop width', () => {
 		await page.getByRole('link', { name: 'Delete…' }).click();
 		await page.waitForURL(/confirm=delete$/);
 		await checkBothWidths(page, 'crop-delete');
-		await page.close();
 		await context.clearCookies();
 	});
 
 	it('the demo farm’s fields for the reviewer: the first column stays in view as the table scrolls', async () => {
 		await context.clearCookies();
-		const page = await context.newPage();
+		const page = await freshPage(context);
 		await signInAs(page, demoUsers.lender);
 		await page.waitForURL('**/farms');
 		await page.getByTestId('farm-list').getByText('Maple Coulee Farm').click();
@@ -264,7 +258,6 @@ describe('at phone and desktop width', () => {
 		});
 		await openPath(page, page.url().replace(/fields$/, 'crops'));
 		await checkBothWidths(page, 'crops-reviewer');
-		await page.close();
 		await context.clearCookies();
 	});
 });

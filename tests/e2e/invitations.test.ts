@@ -5,6 +5,7 @@ import type { BrowserContext } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import {
 	checkBothWidths,
+	freshPage,
 	openPath,
 	screenshot,
 	sessionCookies,
@@ -41,7 +42,7 @@ describe('an invitation by e-mail', () => {
 			context,
 			owner.cookieList().map((cookie) => ({ ...cookie, url: baseUrl }))
 		);
-		const page = await context.newPage();
+		const page = await freshPage(context);
 		await page.setViewportSize(viewports.desktop);
 		await openPath(page, `/farms/${farmId}`);
 		await page.getByRole('link', { name: 'Members and invitations' }).click();

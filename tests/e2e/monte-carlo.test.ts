@@ -5,6 +5,7 @@
 import type { BrowserContext } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import {
+	freshPage,
 	openPath,
 	overflow,
 	screenshot,
@@ -36,7 +37,7 @@ afterAll(() => release());
 
 describe('a Monte Carlo run on the risk page', () => {
 	it('the lender starts a run, sees its progress, then the result; the address brings it back', async () => {
-		const page = await context.newPage();
+		const page = await freshPage(context);
 		await page.setViewportSize(viewports.desktop);
 		await openPath(page, riskPath);
 		const form = page.getByRole('form', { name: 'Monte Carlo settings' });

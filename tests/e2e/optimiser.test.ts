@@ -6,7 +6,13 @@ import { readFile } from 'node:fs/promises';
 import type { BrowserContext, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { OptimiseResult } from '../../src/lib/engine/optimiser/types';
-import { checkBothWidths, openPath, sharedBrowser, useSession } from '../support/browser';
+import {
+	checkBothWidths,
+	freshPage,
+	openPath,
+	sharedBrowser,
+	useSession
+} from '../support/browser';
 import { testDb } from '../support/db';
 import { addMember, farmFromScenario } from '../support/farms';
 import { registerUser, type Client } from '../support/http';
@@ -65,7 +71,7 @@ async function solve(page: Page, limits: { nitrogen?: string; soybeanPercent?: s
 
 describe('an owner', () => {
 	it('solves under an N cap, sees the cap bind, and saves the mix as a plan', async () => {
-		const page = await context.newPage();
+		const page = await freshPage(context);
 		await useSession(context, cookiesOf(owner));
 		await openPath(page, optimisePath);
 		const { status, body } = await solve(page, { nitrogen: '30000', soybeanPercent: '50' });
@@ -106,11 +112,10 @@ describe('an owner', () => {
 		expect(saved.plan.plan.fieldRotations).toHaveLength(result.fields.length);
 		await link.click();
 		await page.waitForURL(new RegExp(`/plans/${planId}$`));
-		await page.close();
 	});
 
 	it('shows a refused option beside its box', async () => {
-		const page = await context.newPage();
+		const page = await freshPage(context);
 		await useSession(context, cookiesOf(owner));
 		await openPath(page, optimisePath);
 		const { status } = await solve(page, { nitrogen: '-5' });
@@ -121,11 +126,10 @@ describe('an owner', () => {
 		expect(
 			await page.getByLabel('Purchased N, at most (lb N a year)').getAttribute('aria-invalid')
 		).toBe('true');
-		await page.close();
 	});
 
 	it('draws an N trade-off curve as a queued job, kept over a reload, and shows a point’s mix', async () => {
-		const page = await context.newPage();
+		const page = await freshPage(context);
 		await useSession(context, cookiesOf(owner));
 		await openPath(page, optimisePath);
 		await page.getByLabel('Limit to sweep').selectOption('nitrogen');
@@ -155,29 +159,26 @@ describe('an owner', () => {
 		const chosen = page.locator('section[aria-labelledby="chosen-heading"]');
 		await chosen.getByTestId('mix-grid').waitFor();
 		expect(await chosen.getByTestId('save-mix').count()).toBe(1);
-		await page.close();
 	});
 
 	it('shows a usable optimiser at phone and desktop width', async () => {
-		const page = await context.newPage();
+		const page = await freshPage(context);
 		await useSession(context, cookiesOf(owner));
 		await openPath(page, optimisePath);
 		await solve(page, { nitrogen: '30000' });
 		await page.getByTestId('mix-grid').waitFor();
 		await checkBothWidths(page, 'optimiser', { targets: true });
-		await page.close();
 	});
 });
 
 describe('a reviewer (lender)', () => {
 	it('solves and reads the answer, but is not offered to save it', async () => {
-		const page = await context.newPage();
+		const page = await freshPage(context);
 		await useSession(context, cookiesOf(reviewer));
 		await openPath(page, optimisePath);
 		const { status } = await solve(page, { nitrogen: '30000' });
 		expect(status).toBe(200);
 		await page.getByTestId('binding-limits').waitFor();
 		expect(await page.getByTestId('save-mix').count()).toBe(0);
-		await page.close();
 	});
 });

@@ -7,7 +7,13 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import type { BrowserContext, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { checkBothWidths, openPath, sharedBrowser, useSession } from '../support/browser';
+import {
+	checkBothWidths,
+	freshPage,
+	openPath,
+	sharedBrowser,
+	useSession
+} from '../support/browser';
 import { testDb } from '../support/db';
 import { farmFromScenario } from '../support/farms';
 import { baseUrl } from '../support/server';
@@ -49,7 +55,7 @@ async function openNewCopy(page: Page, name: string) {
 
 describe('an owner', () => {
 	it('imports a plan file and lands on its editor with its results', async () => {
-		const page = await context.newPage();
+		const page = await freshPage(context);
 		await openPath(page, plansPath);
 		await page
 			.getByLabel('Plan file', { exact: true })
@@ -59,11 +65,10 @@ describe('an owner', () => {
 		await expect.poll(() => page.locator('tr[data-row="netReturn"] td').count()).toBe(5);
 		await openPath(page, plansPath);
 		expect(await page.locator('[data-plan]').count()).toBe(2);
-		await page.close();
 	});
 
 	it('refuses a malformed plan file, naming each bad value, and saves nothing', async () => {
-		const page = await context.newPage();
+		const page = await freshPage(context);
 		const bad = JSON.parse(await readFile('scenarios/reference.json', 'utf8'));
 		bad.fields[0].acres = -5;
 		bad.plan.fieldRotations[0].rotationId = 'no-such-rotation';
@@ -78,11 +83,10 @@ describe('an owner', () => {
 		expect(await issues.textContent()).toContain('plan.fieldRotations.0.rotationId');
 		await openPath(page, plansPath);
 		expect(await page.locator('[data-plan]').count()).toBe(before);
-		await page.close();
 	});
 
 	it('builds a plan: the results follow a changed rotation, and it saves, reloads and restores', async () => {
-		const page = await context.newPage();
+		const page = await freshPage(context);
 		await openNewCopy(page, 'Trial: Big Bend to small grain');
 		const field = page.locator('tr[data-field="big-bend"]');
 		const rotation = field.getByLabel('Rotation of Big Bend');
@@ -118,11 +122,10 @@ describe('an owner', () => {
 		expect(await page.locator('tr[data-version="3"]').textContent()).toContain(
 			'Restored version 1'
 		);
-		await page.close();
 	});
 
 	it('compares the plans with the reference plan, each with its partial budget', async () => {
-		const page = await context.newPage();
+		const page = await freshPage(context);
 		await openPath(page, plansPath);
 		for (const box of await page.getByRole('checkbox', { name: /^Compare / }).all()) {
 			await box.check();
@@ -133,11 +136,10 @@ describe('an owner', () => {
 		expect(await budgets.count()).toBe(
 			(await page.locator('input[name=plans]:checked').count()) - 1
 		);
-		await page.close();
 	});
 
 	it('shows a usable editor at phone and desktop width', async () => {
-		const page = await context.newPage();
+		const page = await freshPage(context);
 		await openPath(page, plansPath);
 		await page.locator('[data-plan] a').first().click();
 		await page.locator('tr[data-row="netReturn"] td').first().waitFor();
@@ -152,6 +154,5 @@ describe('an owner', () => {
 				expect(nameBox.x).toBeGreaterThanOrEqual(gridBox.x - 1);
 			}
 		});
-		await page.close();
 	});
 });

@@ -10,7 +10,13 @@ import { and, arrayContains, eq } from 'drizzle-orm';
 import type { BrowserContext, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { capturedMail, memberships, users } from '../../src/lib/server/db/schema';
-import { checkBothWidths, openPath, sharedBrowser, useSession } from '../support/browser';
+import {
+	checkBothWidths,
+	freshPage,
+	openPath,
+	sharedBrowser,
+	useSession
+} from '../support/browser';
 import { testDb } from '../support/db';
 import { addMember, farmFromScenario } from '../support/farms';
 import { registerUser, type Client } from '../support/http';
@@ -85,7 +91,7 @@ afterAll(() => release());
 
 describe('a plan reviewed by the lender', () => {
 	it('is shared, sent back with changes, edited, shared again, approved and printed', async () => {
-		const page = await context.newPage();
+		const page = await freshPage(context);
 
 		// The owner shares version 1.
 		await session(owner);
@@ -196,6 +202,5 @@ describe('a plan reviewed by the lender', () => {
 			expect(text).not.toContain('Print or save as PDF');
 			expect(Number(/Pages:\s+(\d+)/.exec(info)?.[1])).toBeGreaterThan(1);
 		}
-		await page.close();
 	});
 });

@@ -9,6 +9,7 @@ import { MONTH_NAMES } from '../../src/lib/months';
 import {
 	axeViolations,
 	checkBothWidths,
+	freshPage,
 	openPath,
 	sharedBrowser,
 	useSession,
@@ -60,7 +61,7 @@ describe('a lender’s view of a plan’s risk', () => {
 			owner.fetch(`${apiPath}/break-even`).then((r) => r.json()),
 			owner.fetch(`${apiPath}/sensitivity?steps=-15,15`).then((r) => r.json())
 		]);
-		const page = await context.newPage();
+		const page = await freshPage(context);
 		await page.setViewportSize(viewports.phone);
 		await openPath(page, `${planPath}/risk?steps=-15,15`);
 		expect(await text(page, '[data-testid="credit-caution"]')).toMatch(
@@ -90,11 +91,10 @@ describe('a lender’s view of a plan’s risk', () => {
 		);
 		expect(await page.locator('svg path.lc-bar').count()).toBeGreaterThan(0);
 		await lookAt(page, 'risk');
-		await page.close();
 	});
 
 	it('saves the cash-flow settings and shows the peak loan that follows', async () => {
-		const page = await context.newPage();
+		const page = await freshPage(context);
 		await page.setViewportSize(viewports.phone);
 		await openPath(page, `${planPath}/cash-flow`);
 		await page.getByLabel(/Cash on hand at the start/).fill('25000');
@@ -120,6 +120,5 @@ describe('a lender’s view of a plan’s risk', () => {
 		expect(cells[11].trim()).toBe(formatNumber(sales.byMonthUsd[11]));
 		expect(await text(page, '[data-testid="credit-caution"]')).toMatch(/lender/);
 		await lookAt(page, 'cash-flow');
-		await page.close();
 	});
 });

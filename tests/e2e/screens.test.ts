@@ -3,6 +3,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { BrowserContext } from 'playwright-core';
 import {
 	checkBothWidths,
+	freshPage,
 	openPath,
 	sessionCookies,
 	sharedBrowser,
@@ -19,7 +20,7 @@ let admin: Awaited<ReturnType<typeof sessionCookies>>;
 
 /** Registers through the form like a first-time visitor; the context is then signed in as them. */
 async function registerThroughForm() {
-	const page = await context.newPage();
+	const page = await freshPage(context);
 	await openPath(page, '/register');
 	await page.getByLabel('Your name').fill('Screens Tester');
 	await page.getByLabel('E-mail').fill(`screens-${crypto.randomUUID().slice(0, 8)}@example.test`);
@@ -27,7 +28,6 @@ async function registerThroughForm() {
 	await page.getByLabel('Password again').fill('screens-password');
 	await page.getByRole('button', { name: 'Create account' }).click();
 	await page.waitForURL('**/farms');
-	await page.close();
 }
 
 beforeAll(async () => {
@@ -44,7 +44,7 @@ afterAll(() => release());
 describe('every screen at phone and desktop width', () => {
 	it('the farm list, a new farm form and the settings fit the window', async () => {
 		await useSession(context, newcomer);
-		const page = await context.newPage();
+		const page = await freshPage(context);
 		await page.setViewportSize(viewports.phone);
 		await openPath(page, '/farms');
 		// The form starts open for someone with no farms yet, folded away otherwise.
@@ -60,26 +60,23 @@ describe('every screen at phone and desktop width', () => {
 		await openPath(page, `${new URL(page.url()).pathname}/settings`);
 		await expect(page.getByLabel('Farm name').inputValue()).resolves.toBe('Screens farm');
 		await checkBothWidths(page, 'farm-settings');
-		await page.close();
 	});
 
 	it('the accounts page fits the window (site admin)', async () => {
 		await useSession(context, admin);
-		const page = await context.newPage();
+		const page = await freshPage(context);
 		await openPath(page, '/admin');
 		await expect(page.getByRole('cell', { name: demoUsers.lender }).isVisible()).resolves.toBe(
 			true
 		);
 		await checkBothWidths(page, 'admin');
-		await page.close();
 	});
 
 	it.each(['/glossary', '/'])('%s fits the window', async (path) => {
 		await useSession(context, newcomer);
-		const page = await context.newPage();
+		const page = await freshPage(context);
 		const response = await openPath(page, path);
 		expect(response?.status()).toBe(200);
 		await checkBothWidths(page, path.slice(1) || 'home');
-		await page.close();
 	});
 });

@@ -6,6 +6,7 @@ import type { BrowserContext } from 'playwright-core';
 import { testDb } from '../support/db';
 import {
 	checkBothWidths,
+	freshPage,
 	openPath,
 	sessionCookies,
 	sharedBrowser,
@@ -47,18 +48,17 @@ afterAll(() => release());
 describe('every set-up page at phone and desktop width', () => {
 	it('the owner’s set-up pages fit the window', async () => {
 		await useSession(context, owner);
-		const page = await context.newPage();
+		const page = await freshPage(context);
 		for (const name of pages) {
 			const response = await openPath(page, `${farmPath}/${name}`);
 			expect(response?.status(), name).toBe(200);
 			await checkBothWidths(page, `setup-${name}-owner`);
 		}
-		await page.close();
 	});
 
 	it('the lender reads every set-up page with no edit controls', async () => {
 		await useSession(context, lender);
-		const page = await context.newPage();
+		const page = await freshPage(context);
 		for (const name of pages) {
 			const response = await openPath(page, `${farmPath}/${name}`);
 			expect(response?.status(), name).toBe(200);
@@ -66,14 +66,13 @@ describe('every set-up page at phone and desktop width', () => {
 			await expect(page.locator('main button').count(), `${name} has a button`).resolves.toBe(0);
 			await checkBothWidths(page, `setup-${name}-lender`);
 		}
-		await page.close();
 	});
 });
 
 describe('the lender posting anyway', () => {
 	it('is refused with 403 and nothing changes', async () => {
 		await useSession(context, lender);
-		const page = await context.newPage();
+		const page = await freshPage(context);
 		await openPath(page, `${farmPath}/fields`);
 		const before = await page.locator('tbody tr').count();
 		const answer = await page.request.post(`${farmPath}/fields?/create`, {
@@ -83,6 +82,5 @@ describe('the lender posting anyway', () => {
 		expect(answer.status()).toBe(403);
 		await page.reload();
 		await expect(page.locator('tbody tr').count()).resolves.toBe(before);
-		await page.close();
 	});
 });

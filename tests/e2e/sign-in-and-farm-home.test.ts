@@ -2,6 +2,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { BrowserContext } from 'playwright-core';
 import {
 	checkBothWidths,
+	freshPage,
 	openPath,
 	screenshot,
 	sessionCookies,
@@ -25,7 +26,7 @@ afterAll(() => release());
 describe('signing in and the farm home', () => {
 	it('the owner signs in, opens the farm and sees what is set up', async () => {
 		await context.clearCookies();
-		const page = await context.newPage();
+		const page = await freshPage(context);
 		await openPath(page, '/signin');
 		await checkBothWidths(page, 'sign-in');
 		await page.setViewportSize(viewports.phone);
@@ -56,7 +57,6 @@ describe('signing in and the farm home', () => {
 		await page.waitForURL(/\/data#fields$/);
 		await expect(page.getByRole('cell', { name: 'North Flat' }).isVisible()).resolves.toBe(true);
 		await checkBothWidths(page, 'farm-data');
-		await page.close();
 	});
 });
 
@@ -65,18 +65,17 @@ describe('refusals in the browser', () => {
 		// An account of the test's own: failed attempts are counted per account and address.
 		const { email } = await registerUser('e2e-wrong-password');
 		await context.clearCookies();
-		const page = await context.newPage();
+		const page = await freshPage(context);
 		await signInAs(page, email, 'wrong-password');
 		await expect(page.getByRole('alert').textContent()).resolves.toContain(
 			'do not match an account'
 		);
 		expect(new URL(page.url()).pathname).toBe('/signin');
-		await page.close();
 	});
 
 	it('the lender sees the farm but is refused its settings page', async () => {
 		await useSession(context, await sessionCookies(demoUsers.lender));
-		const page = await context.newPage();
+		const page = await freshPage(context);
 		await openPath(page, '/farms');
 		// Above the farm list, the plans the lender reviews name the farm too.
 		await page.getByTestId('farm-list').getByText('Maple Coulee Farm').click();
@@ -87,12 +86,11 @@ describe('refusals in the browser', () => {
 		await expect(page.getByRole('heading', { level: 1 }).textContent()).resolves.toContain(
 			'may not do this'
 		);
-		await page.close();
 	});
 
 	it('a malformed sign-up shows a message beside each field', async () => {
 		await context.clearCookies();
-		const page = await context.newPage();
+		const page = await freshPage(context);
 		await page.setViewportSize(viewports.phone);
 		await openPath(page, '/register');
 		await page.getByLabel('E-mail').fill('nobody-at-all');
@@ -106,6 +104,5 @@ describe('refusals in the browser', () => {
 			'Use at least 8 characters.'
 		);
 		await screenshot(page, 'register-errors-phone');
-		await page.close();
 	});
 });

@@ -99,7 +99,8 @@ const answersDialogs = new WeakSet<Page>();
  * listening before it ends.
  */
 export async function freshPage(context: BrowserContext): Promise<Page> {
-	const [page] = context.pages();
+	// A test that closed it anyway leaves the next one a new page.
+	const page = context.pages()[0] ?? (await context.newPage());
 	if (!answersDialogs.has(page)) {
 		answersDialogs.add(page);
 		// A plan left with unsaved edits asks before it is left, where a closed page never asked;
